@@ -1,0 +1,109 @@
+package org.orthogon.gmm;
+
+import java.util.Arrays;
+import org.ejml.data.DMatrixRMaj;
+import org.ejml.dense.row.CommonOps_DDRM;
+import org.ejml.dense.row.NormOps_DDRM;
+import org.ejml.dense.row.factory.DecompositionFactory_DDRM;
+import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
+
+/**
+ * Asymptotic inference for GMM estimates (Hansen 1982, "Large sample properties of generalized method
+ * of moments estimators", Econometrica 50). All inputs are evaluated at the estimate: D = ∂g_T/∂θ'
+ * (K x P), W the weight used to estimate (K x K), S the long-run covariance of f_t (K x K), T the
+ * number of observations. Pure functions; inputs are never modified.
+ */
+public final class Inference {
+    private Inference() {
+    }
+
+    /**
+     * Covariance of the efficient estimate, V = (D' S^{-1} D)^{-1} / T (Hansen 1982, Theorem 3.2).
+     */
+    public static DMatrixRMaj efficientCovariance(DMatrixRMaj jacobian, DMatrixRMaj longRun, int observations) {
+        DMatrixRMaj sInverse = Matrices.invertSymmetric(longRun, "S, the long-run covariance of the moments");
+        DMatrixRMaj information = Matrices.quadraticForm(jacobian, sInverse);
+        DMatrixRMaj covariance = Matrices.invertSymmetric(information, "D'S^{-1}D");
+        CommonOps_DDRM.divide(covariance, observations);
+        return covariance;
+    }
+
+    /**
+     * Sandwich covariance for any weight W:
+     * V = (D'WD)^{-1} D'W S W D (D'WD)^{-1} / T (Hansen 1982, Theorem 3.1).
+     */
+    public static DMatrixRMaj sandwichCovariance(DMatrixRMaj jacobian, DMatrixRMaj weight, DMatrixRMaj longRun,
+            int observations) {
+        DMatrixRMaj bread = Matrices.invertSymmetric(Matrices.quadraticForm(jacobian, weight), "D'WD");
+        DMatrixRMaj wd = new DMatrixRMaj(weight.numRows, jacobian.numCols);
+        CommonOps_DDRM.mult(weight, jacobian, wd);
+        DMatrixRMaj meat = Matrices.quadraticForm(wd, longRun);
+        DMatrixRMaj covariance = Matrices.quadraticForm(bread, meat);
+        CommonOps_DDRM.divide(covariance, observations);
+        return Matrices.symmetrize(covariance);
+    }
+
+    /**
+     * Covariance of the sample moments at the estimate,
+     * Var(g_T) = (1/T) (I - D(D'WD)^{-1}D'W) S (I - D(D'WD)^{-1}D'W)' (Hansen 1982, Lemma 4.1;
+     * Cochrane 2005, "Asset Pricing", section 11.5). Its rank is K - P.
+     */
+    public static DMatrixRMaj pricingErrorCovariance(DMatrixRMaj jacobian, DMatrixRMaj weight,
+            DMatrixRMaj longRun, int observations) {
+        int k = jacobian.numRows;
+        DMatrixRMaj bread = Matrices.invertSymmetric(Matrices.quadraticForm(jacobian, weight), "D'WD");
+        DMatrixRMaj dBread = new DMatrixRMaj(k, jacobian.numCols);
+        CommonOps_DDRM.mult(jacobian, bread, dBread);
+        DMatrixRMaj dtW = new DMatrixRMaj(jacobian.numCols, k);
+        CommonOps_DDRM.multTransA(jacobian, weight, dtW);
+        DMatrixRMaj annihilator = CommonOps_DDRM.identity(k);
+        CommonOps_DDRM.multAdd(-1.0, dBread, dtW, annihilator);
+        DMatrixRMaj covariance = new DMatrixRMaj(k, k);
+        DMatrixRMaj temp = new DMatrixRMaj(k, k);
+        CommonOps_DDRM.mult(annihilator, longRun, temp);
+        CommonOps_DDRM.multTransB(temp, annihilator, covariance);
+        CommonOps_DDRM.divide(covariance, observations);
+        return Matrices.symmetrize(covariance);
+    }
+
+    /**
+     * Hansen's (1982) J statistic T g_T' W g_T; chi-square with K - P degrees of freedom when
+     * W is the efficient weight.
+     */
+    public static double quadraticStatistic(DMatrixRMaj meanMoments, DMatrixRMaj weight, int observations) {
+        return observations * Matrices.quadraticValue(meanMoments, weight);
+    }
+
+    /**
+     * Joint test that all pricing errors are zero, g_T' Var(g_T)^+ g_T, with the pseudo-inverse taken
+     * over the K - P largest eigenvalues of Var(g_T), its known rank (Cochrane 2005, section 11.5,
+     * equation 11.17). With the efficient weight it equals the J statistic.
+     */
+    public static double jointPricingStatistic(DMatrixRMaj meanMoments, DMatrixRMaj errorCovariance, int rank) {
+        int k = errorCovariance.numRows;
+        EigenDecomposition_F64<DMatrixRMaj> eig = DecompositionFactory_DDRM.eig(k, true, true);
+        if (!eig.decompose(errorCovariance.copy())) {
+            throw new IllegalStateException("eigen-decomposition of the pricing-error covariance failed");
+        }
+        double[] values = new double[k];
+        Integer[] byDecreasingValue = new Integer[k];
+        for (int i = 0; i < k; i++) {
+            values[i] = eig.getEigenvalue(i).real;
+            byDecreasingValue[i] = i;
+        }
+        Arrays.sort(byDecreasingValue, (a, b) -> Double.compare(values[b], values[a]));
+        double statistic = 0.0;
+        for (int r = 0; r < rank; r++) {
+            int index = byDecreasingValue[r];
+            DMatrixRMaj vector = eig.getEigenVector(index);
+            double norm = NormOps_DDRM.normF(vector);
+            double projection = 0.0;
+            for (int i = 0; i < k; i++) {
+                projection += vector.data[i] * meanMoments.data[i];
+            }
+            projection /= norm;
+            statistic += projection * projection / values[index];
+        }
+        return statistic;
+    }
+}

@@ -1,0 +1,102 @@
+package org.orthogon.moments;
+
+import java.util.ArrayList;
+import java.util.List;
+
+/**
+ * Pricing errors of a linear stochastic discount factor on excess returns, m_t = 1 - b'F_t:
+ * e_{t,i}(b) = R^e_{t,i} (1 - b'F_t). In population E[m_t R^e_t] = 0 (Cochrane 2005, "Asset
+ * Pricing", revised edition, chapters 13.2 and 13.3). The errors are affine in b with
+ * ∂e_{t,i}/∂b_k = -R^e_{t,i} F_{t,k}, so the mean is g_T(b) = d - C b with d = mean R^e and
+ * C = mean R^e F', and GMM with weight W has the closed form b = (C'WC)^{-1} C'W d.
+ */
+public final class LinearFactorErrors implements ObservationErrors {
+    private final double[][] excessReturns; // [t][i]
+    private final double[][] factors; // [t][k]
+    private final List<String> assetNames;
+    private final List<String> parameterNames;
+
+    /**
+     * @param excessReturns T x N excess returns
+     * @param factors       T x K factor values on the same dates
+     * @param assetNames    N names
+     * @param factorNames   K names; the parameters are named b_&lt;factor&gt;
+     */
+    public LinearFactorErrors(double[][] excessReturns, double[][] factors, List<String> assetNames,
+            List<String> factorNames) {
+        if (excessReturns.length != factors.length) {
+            throw new IllegalArgumentException("returns have " + excessReturns.length + " rows but factors have "
+                    + factors.length);
+        }
+        this.assetNames = List.copyOf(assetNames);
+        List<String> names = new ArrayList<>();
+        for (String factor : factorNames) {
+            names.add("b_" + factor);
+        }
+        this.parameterNames = List.copyOf(names);
+        this.excessReturns = copyRows(excessReturns, assetNames.size(), "return");
+        this.factors = copyRows(factors, factorNames.size(), "factor");
+    }
+
+    private static double[][] copyRows(double[][] rows, int width, String what) {
+        double[][] copy = new double[rows.length][];
+        for (int t = 0; t < rows.length; t++) {
+            if (rows[t].length != width) {
+                throw new IllegalArgumentException(what + " row " + t + " has " + rows[t].length
+                        + " values, expected " + width);
+            }
+            copy[t] = rows[t].clone();
+        }
+        return copy;
+    }
+
+    @Override
+    public List<String> parameterNames() {
+        return parameterNames;
+    }
+
+    @Override
+    public List<String> assetNames() {
+        return assetNames;
+    }
+
+    @Override
+    public int observations() {
+        return excessReturns.length;
+    }
+
+    @Override
+    public boolean isLinear() {
+        return true;
+    }
+
+    @Override
+    public void errors(double[] b, double[] out) {
+        int n = assetNames.size();
+        for (int t = 0; t < excessReturns.length; t++) {
+            double sdf = 1.0;
+            double[] f = factors[t];
+            for (int k = 0; k < f.length; k++) {
+                sdf -= b[k] * f[k];
+            }
+            double[] r = excessReturns[t];
+            for (int i = 0; i < n; i++) {
+                out[t * n + i] = r[i] * sdf;
+            }
+        }
+    }
+
+    @Override
+    public void errorDerivatives(double[] b, double[][] out) {
+        int n = assetNames.size();
+        for (int t = 0; t < excessReturns.length; t++) {
+            double[] f = factors[t];
+            double[] r = excessReturns[t];
+            for (int k = 0; k < f.length; k++) {
+                for (int i = 0; i < n; i++) {
+                    out[k][t * n + i] = -r[i] * f[k];
+                }
+            }
+        }
+    }
+}

@@ -1,0 +1,51 @@
+package org.orthogon.moments;
+
+import java.util.List;
+import org.ejml.data.DMatrixRMaj;
+
+/**
+ * A set of moment conditions E[f_t(θ)] = 0 evaluated on one aligned sample.
+ *
+ * <p>Conventions (DESIGN.md section 3): the contributions form a T x K matrix F whose row t is
+ * f_t(θ)'; the sample mean is g_T(θ) = (1/T) Σ_t f_t(θ); the Jacobian is D = ∂g_T/∂θ', a K x P
+ * matrix. Implementations are pure: they never read files or print, and they never mutate the data
+ * they were built from.
+ */
+public interface MomentModel {
+
+    /** Names of the P parameters, in the order of θ. */
+    List<String> parameterNames();
+
+    /** Names of the K moments, in the order of the columns of F (for scaled moments "asset*instrument"). */
+    List<String> momentNames();
+
+    /** Number of observations T in the aligned sample. */
+    int observations();
+
+    /** The T x K matrix of contributions f_t(θ)'. A new matrix on every call. */
+    DMatrixRMaj contributions(double[] theta);
+
+    /** The K x P Jacobian D = ∂g_T/∂θ' of the sample mean, analytic. */
+    DMatrixRMaj meanJacobian(double[] theta);
+
+    /**
+     * True when g_T(θ) is affine in θ, g_T(θ) = g_T(0) + D θ with D constant, so that the GMM
+     * estimator has the closed form θ = -(D'WD)^{-1} D'W g_T(0) for every weight W.
+     */
+    boolean isLinear();
+
+    /** The 1 x K sample mean g_T(θ), as a K x 1 column. */
+    default DMatrixRMaj meanMoments(double[] theta) {
+        return MomentAlgebra.columnMeans(contributions(theta));
+    }
+
+    /** Number of moments K. */
+    default int momentCount() {
+        return momentNames().size();
+    }
+
+    /** Number of parameters P. */
+    default int parameterCount() {
+        return parameterNames().size();
+    }
+}

@@ -1,0 +1,30 @@
+package org.orthogon.moments;
+
+import java.util.List;
+
+/**
+ * The unscaled pricing errors of one model family, observation by observation: e_t(θ), one column per
+ * test asset, and their derivatives ∂e_t/∂θ_p. {@link ScaledMoments} turns them into GMM moments,
+ * multiplying by instruments when there are any, so each family writes its economics once.
+ */
+public interface ObservationErrors {
+
+    List<String> parameterNames();
+
+    /** Names of the N assets whose errors this family produces. */
+    List<String> assetNames();
+
+    int observations();
+
+    /** Fills {@code out} (T x N, row-major, length T*N) with e_t(θ). */
+    void errors(double[] theta, double[] out);
+
+    /**
+     * Fills {@code out[p]} (each T x N, row-major) with ∂e_t/∂θ_p. Called only for non-linear work and
+     * for standard errors, so clarity wins over speed here.
+     */
+    void errorDerivatives(double[] theta, double[][] out);
+
+    /** True when e_t(θ) is affine in θ. */
+    boolean isLinear();
+}

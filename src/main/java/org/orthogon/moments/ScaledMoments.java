@@ -1,0 +1,156 @@
+package org.orthogon.moments;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Objects;
+import org.ejml.data.DMatrixRMaj;
+
+/**
+ * GMM moments built from a family's pricing errors, optionally scaled by instruments:
+ * f_t(θ) = e_t(θ) ⊗ z_{t-1}, where z_{t-1} is known when the payoff dated t is priced
+ * (Hansen and Singleton 1982, "Generalized instrumental variables estimation of nonlinear rational
+ * expectations models", Econometrica 50). Without instruments f_t(θ) = e_t(θ).
+ *
+ * <p>The caller aligns the instruments: row t of {@code laggedInstruments} must already hold z_{t-1}.
+ * Moment (i, j) sits in column i*L + j, named "asset*instrument".
+ */
+public final class ScaledMoments implements MomentModel {
+    private final ObservationErrors errors;
+    private final double[][] instruments; // [t][j], already lagged; null when unscaled
+    private final List<String> momentNames;
+    private final int assets;
+    private final int instrumentCount;
+
+    private ScaledMoments(ObservationErrors errors, double[][] laggedInstruments, List<String> instrumentNames) {
+        this.errors = Objects.requireNonNull(errors);
+        this.assets = errors.assetNames().size();
+        if (laggedInstruments == null) {
+            this.instruments = null;
+            this.instrumentCount = 1;
+            this.momentNames = List.copyOf(errors.assetNames());
+        } else {
+            if (laggedInstruments.length != errors.observations()) {
+                throw new IllegalArgumentException("instruments have " + laggedInstruments.length
+                        + " rows but the pricing errors have " + errors.observations());
+            }
+            if (instrumentNames.isEmpty()) {
+                throw new IllegalArgumentException("an empty instrument list would remove every moment");
+            }
+            this.instrumentCount = instrumentNames.size();
+            this.instruments = new double[laggedInstruments.length][];
+            for (int t = 0; t < laggedInstruments.length; t++) {
+                if (laggedInstruments[t].length != instrumentCount) {
+                    throw new IllegalArgumentException("instrument row " + t + " has " + laggedInstruments[t].length
+                            + " values, expected " + instrumentCount);
+                }
+                this.instruments[t] = laggedInstruments[t].clone();
+            }
+            List<String> names = new ArrayList<>(assets * instrumentCount);
+            for (String asset : errors.assetNames()) {
+                for (String instrument : instrumentNames) {
+                    names.add(asset + "*" + instrument);
+                }
+            }
+            this.momentNames = List.copyOf(names);
+        }
+    }
+
+    /** Unscaled moments f_t(θ) = e_t(θ). */
+    public static ScaledMoments unscaled(ObservationErrors errors) {
+        return new ScaledMoments(errors, null, List.of());
+    }
+
+    /** Moments f_t(θ) = e_t(θ) ⊗ z_{t-1}; row t of {@code laggedInstruments} holds z_{t-1}. */
+    public static ScaledMoments scaled(ObservationErrors errors, double[][] laggedInstruments,
+            List<String> instrumentNames) {
+        return new ScaledMoments(errors, Objects.requireNonNull(laggedInstruments), List.copyOf(instrumentNames));
+    }
+
+    @Override
+    public List<String> parameterNames() {
+        return errors.parameterNames();
+    }
+
+    @Override
+    public List<String> momentNames() {
+        return momentNames;
+    }
+
+    @Override
+    public int observations() {
+        return errors.observations();
+    }
+
+    @Override
+    public boolean isLinear() {
+        return errors.isLinear();
+    }
+
+    @Override
+    public DMatrixRMaj contributions(double[] theta) {
+        checkLength(theta);
+        int rows = observations();
+        double[] raw = new double[rows * assets];
+        errors.errors(theta, raw);
+        if (instruments == null) {
+            return DMatrixRMaj.wrap(rows, assets, raw);
+        }
+        DMatrixRMaj scaled = new DMatrixRMaj(rows, assets * instrumentCount);
+        kronecker(raw, scaled.data);
+        return scaled;
+    }
+
+    @Override
+    public DMatrixRMaj meanJacobian(double[] theta) {
+        checkLength(theta);
+        int rows = observations();
+        int params = parameterNames().size();
+        double[][] derivatives = new double[params][rows * assets];
+        errors.errorDerivatives(theta, derivatives);
+        int moments = assets * instrumentCount;
+        DMatrixRMaj jacobian = new DMatrixRMaj(moments, params);
+        double[] scaled = new double[rows * moments];
+        for (int p = 0; p < params; p++) {
+            double[] column;
+            if (instruments == null) {
+                column = derivatives[p];
+            } else {
+                kronecker(derivatives[p], scaled);
+                column = scaled;
+            }
+            for (int t = 0; t < rows; t++) {
+                int offset = t * moments;
+                for (int k = 0; k < moments; k++) {
+                    jacobian.data[k * params + p] += column[offset + k];
+                }
+            }
+            for (int k = 0; k < moments; k++) {
+                jacobian.data[k * params + p] /= rows;
+            }
+        }
+        return jacobian;
+    }
+
+    private void kronecker(double[] raw, double[] out) {
+        int rows = observations();
+        int moments = assets * instrumentCount;
+        for (int t = 0; t < rows; t++) {
+            double[] z = instruments[t];
+            int in = t * assets;
+            int outOffset = t * moments;
+            for (int i = 0; i < assets; i++) {
+                double e = raw[in + i];
+                for (int j = 0; j < instrumentCount; j++) {
+                    out[outOffset + i * instrumentCount + j] = e * z[j];
+                }
+            }
+        }
+    }
+
+    private void checkLength(double[] theta) {
+        if (theta.length != parameterNames().size()) {
+            throw new IllegalArgumentException("θ has " + theta.length + " values, the model has parameters "
+                    + parameterNames());
+        }
+    }
+}

@@ -1,0 +1,398 @@
+package org.orthogon.spec;
+
+import java.io.IOException;
+import java.nio.ByteBuffer;
+import java.nio.charset.CharacterCodingException;
+import java.nio.charset.CodingErrorAction;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.AccessDeniedException;
+import java.nio.file.Files;
+import java.nio.file.NoSuchFileException;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.Set;
+import java.util.stream.Collectors;
+import org.orthogon.data.InputException;
+import org.orthogon.gmm.EstimationMethod;
+import org.orthogon.longrun.BandwidthRule;
+import org.orthogon.longrun.Kernel;
+import org.orthogon.spec.RunSpec.DataSpec;
+import org.orthogon.spec.RunSpec.EstimationSpec;
+import org.orthogon.spec.RunSpec.Family;
+import org.orthogon.spec.RunSpec.ModelSpec;
+import tools.jackson.core.JacksonException;
+import tools.jackson.core.TokenStreamLocation;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.dataformat.toml.TomlMapper;
+
+/**
+ * Reads a model file (TOML, DESIGN.md section 4) into a {@link RunSpec}. Every refusal is an
+ * {@link InputException} naming the model file, the line of the offending key and the fix; unknown
+ * keys are errors with a "did you mean" suggestion, never silently ignored.
+ */
+public final class ModelFile {
+    private static final Set<String> TOP_LEVEL = Set.of("title", "data", "model", "estimation");
+    private static final List<String> DATA_KEYS = List.of("returns", "returns_kind", "units", "riskfree",
+            "riskfree_column", "factors", "macro", "instruments", "start", "end");
+    private static final List<String> MODEL_KEYS = List.of("family", "consumption_column", "factor_columns",
+            "instrument_columns", "start_values");
+    private static final List<String> ESTIMATION_KEYS = List.of("method", "initial_weight", "kernel", "bandwidth",
+            "lags", "prewhiten", "centered");
+    private static final List<String> RETURN_KINDS = List.of("gross", "net", "excess");
+    private static final List<String> UNITS = List.of("decimal", "percent");
+    private static final List<String> INITIAL_WEIGHTS = List.of("identity");
+
+    private final Path file;
+    private final List<String> lines;
+    private final JsonNode root;
+
+    private ModelFile(Path file, List<String> lines, JsonNode root) {
+        this.file = file;
+        this.lines = lines;
+        this.root = root;
+    }
+
+    /** Reads and validates {@code file}. */
+    public static RunSpec read(Path file) {
+        String text = readUtf8(file);
+        JsonNode root;
+        try {
+            root = TomlMapper.builder().build().readTree(text);
+        } catch (JacksonException e) {
+            TokenStreamLocation location = e.getLocation();
+            int line = location == null ? 0 : Math.max(location.getLineNr(), 0);
+            throw InputException.in(file).line(line)
+                    .problem("this is not valid TOML: " + e.getOriginalMessage(),
+                            "fix the syntax (key = value, strings in double quotes, [section] headers)");
+        }
+        if (root == null || !root.isObject()) {
+            throw InputException.in(file).problem("the model file is empty",
+                    "write at least a [data] section with returns and a [model] section with family");
+        }
+        return new ModelFile(file, text.lines().toList(), root).parse();
+    }
+
+    private static String readUtf8(Path file) {
+        byte[] bytes;
+        try {
+            if (Files.isDirectory(file)) {
+                throw InputException.in(file).problem("this is a folder, not a model file",
+                        "give the path of a .toml model file");
+            }
+            bytes = Files.readAllBytes(file);
+        } catch (NoSuchFileException e) {
+            throw InputException.in(file).problem("the model file does not exist",
+                    "check the path; ready model files are in models/");
+        } catch (AccessDeniedException e) {
+            throw InputException.in(file).problem("the model file cannot be read (permission denied)",
+                    "make the file readable");
+        } catch (IOException e) {
+            throw InputException.in(file).problem("the model file cannot be read: " + e.getMessage(),
+                    "check the path and permissions");
+        }
+        try {
+            String text = StandardCharsets.UTF_8.newDecoder()
+                    .onMalformedInput(CodingErrorAction.REPORT)
+                    .onUnmappableCharacter(CodingErrorAction.REPORT)
+                    .decode(ByteBuffer.wrap(bytes)).toString();
+            return text.startsWith("\uFEFF") ? text.substring(1) : text;
+        } catch (CharacterCodingException e) {
+            throw InputException.in(file).line(firstBadUtf8Line(bytes))
+                    .problem("the model file is not UTF-8 text", "save the file as UTF-8");
+        }
+    }
+
+    private static int firstBadUtf8Line(byte[] bytes) {
+        int line = 1;
+        int start = 0;
+        for (int i = 0; i <= bytes.length; i++) {
+            if (i == bytes.length || bytes[i] == '\n') {
+                try {
+                    StandardCharsets.UTF_8.newDecoder().onMalformedInput(CodingErrorAction.REPORT)
+                            .decode(ByteBuffer.wrap(bytes, start, i - start));
+                } catch (CharacterCodingException e) {
+                    return line;
+                }
+                line++;
+                start = i + 1;
+            }
+        }
+        return 0;
+    }
+
+    private RunSpec parse() {
+        rejectUnknown(null, root, new ArrayList<>(TOP_LEVEL));
+        JsonNode data = requiredSection("data", "returns = \"...csv\"");
+        JsonNode model = requiredSection("model", "family = \"power-utility\"");
+        JsonNode estimation = root.has("estimation") ? section("estimation") : null;
+        rejectUnknown("data", data, DATA_KEYS);
+        rejectUnknown("model", model, MODEL_KEYS);
+        if (estimation != null) {
+            rejectUnknown("estimation", estimation, ESTIMATION_KEYS);
+        }
+        String title = root.has("title") ? string(null, root, "title") : fileStem();
+        DataSpec dataSpec = parseData(data);
+        ModelSpec modelSpec = parseModel(model);
+        EstimationSpec estimationSpec = parseEstimation(estimation);
+        return new RunSpec(file, title, dataSpec, modelSpec, estimationSpec);
+    }
+
+    private DataSpec parseData(JsonNode data) {
+        if (!data.has("returns")) {
+            throw error("data", null, "[data] has no returns file",
+                    "add returns = \"path/to/returns.csv\" (a wide CSV: a date column, then one column per test asset)");
+        }
+        return new DataSpec(
+                path("data", data, "returns"),
+                choice("data", data, "returns_kind", RETURN_KINDS, "gross"),
+                choice("data", data, "units", UNITS, "decimal"),
+                optionalPath(data, "riskfree"),
+                optionalString("data", data, "riskfree_column"),
+                optionalPath(data, "factors"),
+                optionalPath(data, "macro"),
+                optionalPath(data, "instruments"),
+                optionalString("data", data, "start"),
+                optionalString("data", data, "end"));
+    }
+
+    private ModelSpec parseModel(JsonNode model) {
+        if (!model.has("family")) {
+            throw error("model", null, "[model] has no family",
+                    "add family = \"power-utility\" or family = \"linear-factor\"");
+        }
+        String familyId = string("model", model, "family");
+        Family family = Family.fromId(familyId).orElseThrow(() -> error("model", "family",
+                "unknown family \"" + familyId + "\"",
+                "use one of " + Arrays.stream(Family.values()).map(Family::id).collect(Collectors.joining(", "))
+                        + Suggestions.didYouMean(familyId,
+                                Arrays.stream(Family.values()).map(Family::id).toList())));
+        Map<String, Double> startValues = new LinkedHashMap<>();
+        if (model.has("start_values")) {
+            JsonNode values = model.get("start_values");
+            if (!values.isObject()) {
+                throw error("model", "start_values", "start_values must be a table of numbers",
+                        "write start_values = { beta = 0.99, gamma = 2.0 }");
+            }
+            for (Map.Entry<String, JsonNode> entry : values.properties()) {
+                if (!entry.getValue().isNumber()) {
+                    throw error("model", "start_values", "start value of " + entry.getKey() + " is not a number",
+                            "write a number, e.g. " + entry.getKey() + " = 2.0");
+                }
+                startValues.put(entry.getKey(), entry.getValue().asDouble());
+            }
+        }
+        return new ModelSpec(family,
+                optionalString("model", model, "consumption_column"),
+                stringList("model", model, "factor_columns"),
+                stringList("model", model, "instrument_columns"),
+                startValues);
+    }
+
+    private EstimationSpec parseEstimation(JsonNode estimation) {
+        JsonNode node = estimation == null ? TomlMapper.builder().build().createObjectNode() : estimation;
+        String methodId = choice("estimation", node, "method",
+                Arrays.stream(EstimationMethod.values()).map(EstimationMethod::id).toList(), "two-step");
+        String weight = choice("estimation", node, "initial_weight", INITIAL_WEIGHTS, "identity");
+        String kernelId = choice("estimation", node, "kernel",
+                Arrays.stream(Kernel.values()).map(Kernel::id).toList(), "bartlett");
+        Kernel kernel = Kernel.fromId(kernelId);
+        if (node.has("bandwidth") && node.has("lags")) {
+            throw error("estimation", "lags", "both bandwidth and lags are given",
+                    "keep one: lags = L (a lag count) or bandwidth = b (the number in k(j/b))");
+        }
+        BandwidthRule rule;
+        if (node.has("lags")) {
+            JsonNode lags = node.get("lags");
+            if (!lags.isIntegralNumber() || lags.asInt() < 0) {
+                throw error("estimation", "lags", "lags must be a whole number >= 0, found " + lags,
+                        "write lags = 4, for example");
+            }
+            rule = new BandwidthRule.Lags(lags.asInt());
+        } else if (node.has("bandwidth")) {
+            JsonNode bandwidth = node.get("bandwidth");
+            rule = parseBandwidth(bandwidth.asString(),
+                    msg -> error("estimation", "bandwidth", msg,
+                            "write bandwidth = 5.0, \"andrews\" or \"newey-west\""));
+        } else {
+            rule = new BandwidthRule.Lags(kernel == Kernel.NONE ? 0 : 4);
+        }
+        return new EstimationSpec(EstimationMethod.fromId(methodId), weight, kernel, rule,
+                bool("estimation", node, "prewhiten", false), bool("estimation", node, "centered", true));
+    }
+
+    /**
+     * Parses a bandwidth choice: a positive number b, "andrews" or "newey-west". Shared with the
+     * command line so both spell it the same way.
+     */
+    public static BandwidthRule parseBandwidth(String text, java.util.function.Function<String, InputException> fail) {
+        switch (text) {
+            case "andrews":
+                return new BandwidthRule.Andrews();
+            case "newey-west":
+                return new BandwidthRule.NeweyWest();
+            default:
+                try {
+                    double b = Double.parseDouble(text);
+                    if (b > 0 && Double.isFinite(b)) {
+                        return new BandwidthRule.Fixed(b);
+                    }
+                } catch (NumberFormatException ignored) {
+                    // falls through to the refusal below
+                }
+                throw fail.apply("bandwidth \"" + text + "\" is neither a positive number nor a rule name");
+        }
+    }
+
+    private JsonNode requiredSection(String name, String example) {
+        if (!root.has(name)) {
+            throw InputException.in(file).problem("the model file has no [" + name + "] section",
+                    "add a [" + name + "] section, e.g.\n    [" + name + "]\n    " + example);
+        }
+        return section(name);
+    }
+
+    private JsonNode section(String name) {
+        JsonNode node = root.get(name);
+        if (!node.isObject()) {
+            throw error(null, name, name + " must be a [" + name + "] section, not a value",
+                    "write [" + name + "] on its own line followed by its keys");
+        }
+        return node;
+    }
+
+    private void rejectUnknown(String section, JsonNode node, List<String> known) {
+        for (String key : node.propertyNames()) {
+            if (!known.contains(key)) {
+                String where = section == null ? "at the top level" : "in [" + section + "]";
+                throw error(section, key, "unknown key \"" + key + "\" " + where,
+                        "remove it" + Suggestions.didYouMean(key, known) + "; known keys: " + String.join(", ", known));
+            }
+        }
+    }
+
+    private String string(String section, JsonNode node, String key) {
+        JsonNode value = node.get(key);
+        if (!value.isString()) {
+            throw error(section, key, key + " must be a string in double quotes, found " + value,
+                    "write " + key + " = \"...\"");
+        }
+        return value.asString();
+    }
+
+    private Optional<String> optionalString(String section, JsonNode node, String key) {
+        return node.has(key) ? Optional.of(string(section, node, key)) : Optional.empty();
+    }
+
+    private String choice(String section, JsonNode node, String key, List<String> allowed, String fallback) {
+        if (!node.has(key)) {
+            return fallback;
+        }
+        String value = string(section, node, key);
+        if (!allowed.contains(value)) {
+            throw error(section, key, key + " = \"" + value + "\" is not a known choice",
+                    "use one of " + String.join(", ", allowed) + Suggestions.didYouMean(value, allowed));
+        }
+        return value;
+    }
+
+    private boolean bool(String section, JsonNode node, String key, boolean fallback) {
+        if (!node.has(key)) {
+            return fallback;
+        }
+        JsonNode value = node.get(key);
+        if (!value.isBoolean()) {
+            throw error(section, key, key + " must be true or false, found " + value, "write " + key + " = true");
+        }
+        return value.asBoolean();
+    }
+
+    private List<String> stringList(String section, JsonNode node, String key) {
+        if (!node.has(key)) {
+            return List.of();
+        }
+        JsonNode value = node.get(key);
+        if (!value.isArray()) {
+            throw error(section, key, key + " must be a list of column names", "write " + key + " = [\"A\", \"B\"]");
+        }
+        List<String> names = new ArrayList<>();
+        for (JsonNode element : value) {
+            if (!element.isString()) {
+                throw error(section, key, key + " must hold column names in double quotes, found " + element,
+                        "write " + key + " = [\"A\", \"B\"]");
+            }
+            if (names.contains(element.asString())) {
+                throw error(section, key, key + " names \"" + element.asString() + "\" twice", "list each column once");
+            }
+            names.add(element.asString());
+        }
+        return List.copyOf(names);
+    }
+
+    private Path path(String section, JsonNode node, String key) {
+        String text = string(section, node, key);
+        if (text.isBlank()) {
+            throw error(section, key, key + " is empty", "write the path of a CSV file, relative to the model file");
+        }
+        Path folder = file.toAbsolutePath().getParent();
+        return folder.resolve(text).normalize();
+    }
+
+    private Optional<Path> optionalPath(JsonNode node, String key) {
+        return node.has(key) ? Optional.of(path("data", node, key)) : Optional.empty();
+    }
+
+    private String fileStem() {
+        String name = file.getFileName().toString();
+        return name.endsWith(".toml") ? name.substring(0, name.length() - 5) : name;
+    }
+
+    /** An error about {@code key} of {@code section}, located on its line in the model file. */
+    InputException error(String section, String key, String problem, String fix) {
+        return InputException.in(file).line(lineOf(section, key)).problem(problem, fix);
+    }
+
+    /**
+     * The 1-based line where {@code key} is assigned inside {@code [section]} (or the section header
+     * when {@code key} is null); 0 when it cannot be found. The TOML tree keeps no positions, so the
+     * raw lines are searched; dotted and inline-table forms fall back to the section header.
+     */
+    int lineOf(String section, String key) {
+        String current = null;
+        int header = 0;
+        for (int i = 0; i < lines.size(); i++) {
+            String line = lines.get(i).strip();
+            if (line.startsWith("[") && !line.startsWith("[[")) {
+                int close = line.indexOf(']');
+                current = close > 0 ? line.substring(1, close).strip() : null;
+                if (section != null && section.equals(current)) {
+                    header = i + 1;
+                }
+                if (key != null && section == null && key.equals(current)) {
+                    return i + 1;
+                }
+                continue;
+            }
+            boolean inSection = section == null ? current == null : section.equals(current);
+            if (inSection && key != null && assigns(line, key)) {
+                return i + 1;
+            }
+        }
+        return header;
+    }
+
+    private static boolean assigns(String line, String key) {
+        String unquoted = line.startsWith("\"") && line.indexOf('"', 1) > 0
+                ? line.substring(1, line.indexOf('"', 1)) + line.substring(line.indexOf('"', 1) + 1)
+                : line;
+        if (!unquoted.startsWith(key)) {
+            return false;
+        }
+        String rest = unquoted.substring(key.length()).stripLeading();
+        return rest.startsWith("=") || rest.startsWith(".");
+    }
+}

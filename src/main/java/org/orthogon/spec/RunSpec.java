@@ -1,0 +1,97 @@
+package org.orthogon.spec;
+
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import org.orthogon.gmm.EstimationMethod;
+import org.orthogon.longrun.BandwidthRule;
+import org.orthogon.longrun.Kernel;
+import org.orthogon.longrun.LongRunOptions;
+
+/**
+ * A validated model file: every path resolved against the model file's folder, every choice typed.
+ * Built by {@link ModelFile#read(Path)}; command-line options replace parts with the {@code with...}
+ * methods, so one record describes exactly what a run did.
+ */
+public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec model, EstimationSpec estimation) {
+
+    /** Paths and conventions of the input files ([data] section). */
+    public record DataSpec(
+            Path returns,
+            String returnsKind,
+            String units,
+            Optional<Path> riskfree,
+            Optional<String> riskfreeColumn,
+            Optional<Path> factors,
+            Optional<Path> macro,
+            Optional<Path> instruments,
+            Optional<String> start,
+            Optional<String> end) {
+    }
+
+    /** The SDF family and its columns ([model] section). */
+    public record ModelSpec(
+            Family family,
+            Optional<String> consumptionColumn,
+            List<String> factorColumns,
+            List<String> instrumentColumns,
+            Map<String, Double> startValues) {
+        public ModelSpec {
+            factorColumns = List.copyOf(factorColumns);
+            instrumentColumns = List.copyOf(instrumentColumns);
+            startValues = Map.copyOf(startValues);
+        }
+    }
+
+    /** Estimation choices ([estimation] section). */
+    public record EstimationSpec(EstimationMethod method, String initialWeight, Kernel kernel, BandwidthRule bandwidth,
+            boolean prewhiten, boolean centered) {
+
+        /** The long-run covariance options these choices imply. */
+        public LongRunOptions longRunOptions() {
+            return new LongRunOptions(kernel, bandwidth, centered, prewhiten);
+        }
+
+        /** A human-readable bandwidth choice: "lags 4", "b = 5.0", "andrews", "newey-west". */
+        public String bandwidthLabel() {
+            if (bandwidth instanceof BandwidthRule.Lags lags) {
+                return "lags " + lags.lags();
+            }
+            if (bandwidth instanceof BandwidthRule.Fixed fixed) {
+                return "b = " + fixed.bandwidth();
+            }
+            return bandwidth instanceof BandwidthRule.Andrews ? "andrews" : "newey-west";
+        }
+    }
+
+    /** The model families this version knows (DESIGN.md section 4). */
+    public enum Family {
+        POWER_UTILITY("power-utility"),
+        LINEAR_FACTOR("linear-factor");
+
+        private final String id;
+
+        Family(String id) {
+            this.id = id;
+        }
+
+        public String id() {
+            return id;
+        }
+
+        /** The family with this id, or empty. */
+        public static Optional<Family> fromId(String id) {
+            for (Family family : values()) {
+                if (family.id.equals(id)) {
+                    return Optional.of(family);
+                }
+            }
+            return Optional.empty();
+        }
+    }
+
+    public RunSpec withEstimation(EstimationSpec replacement) {
+        return new RunSpec(modelFile, title, data, model, replacement);
+    }
+}
