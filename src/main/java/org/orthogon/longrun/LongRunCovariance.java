@@ -32,12 +32,13 @@ public final class LongRunCovariance {
         if (options.prewhiten()) {
             throw new IllegalArgumentException("prewhitening is not supported yet");
         }
-        double b = bandwidth(ac, options, warnings);
+        double b = bandwidth(ac, options, moments.numRows, false, warnings);
         DMatrixRMaj s = ac.longRun(options.kernel(), b);
         return new LongRunEstimate(s, options.kernel(), b, options.centered(), false, warnings);
     }
 
-    private static double bandwidth(Autocovariances ac, LongRunOptions options, List<String> warnings) {
+    private static double bandwidth(Autocovariances ac, LongRunOptions options, int originalT,
+            boolean prewhitened, List<String> warnings) {
         Kernel kernel = options.kernel();
         if (kernel == Kernel.NONE) {
             return 0.0;
@@ -48,14 +49,27 @@ public final class LongRunCovariance {
             b = f.bandwidth();
         } else if (rule instanceof BandwidthRule.Lags l) {
             b = kernel.bandwidthForLags(l.lags());
+        } else if (rule instanceof BandwidthRule.Andrews) {
+            b = Bandwidths.andrews(ac.series(), ac.observations(), ac.columns(), kernel, equalWeights(ac),
+                    warnings);
+        } else if (rule instanceof BandwidthRule.NeweyWest) {
+            b = Bandwidths.neweyWest(ac.series(), ac.observations(), ac.columns(), kernel, equalWeights(ac),
+                    originalT, prewhitened);
         } else {
-            throw new IllegalArgumentException("bandwidth rule " + rule + " is not supported yet");
+            throw new AssertionError(rule);
         }
         if (kernel.isTruncated() && b > ac.maxLag() + 1) {
             warnings.add("bandwidth " + b + " reaches beyond the " + ac.maxLag()
                     + " lags the sample has; all available lags were used");
         }
         return b;
+    }
+
+    /** DESIGN.md: every moment column counts the same in the automatic bandwidth rules. */
+    private static double[] equalWeights(Autocovariances ac) {
+        double[] w = new double[ac.columns()];
+        java.util.Arrays.fill(w, 1.0);
+        return w;
     }
 
     /**
