@@ -1,0 +1,122 @@
+package org.orthogon.longrun;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Objects;
+import org.ejml.data.DMatrixRMaj;
+import org.ejml.dense.row.CommonOps_DDRM;
+
+/**
+ * Long-run covariance S of GMM moment contributions f_t (rows of a T x K matrix F), the
+ * "S" of Hansen (1982): S = Γ_0 + Σ_{j≥1} k(j/b)(Γ_j + Γ_j'), Γ_j = (1/T) Σ_{t=j+1..T} u_t u_{t-j}',
+ * u_t = f_t - mean f (centered, the default) or u_t = f_t. Kernels after Andrews (1991); Bartlett
+ * with b = L + 1 is Newey and West (1987). Pure functions, no I/O.
+ */
+public final class LongRunCovariance {
+
+    private LongRunCovariance() {}
+
+    /**
+     * Estimates S from the moment contributions.
+     *
+     * @param moments F, T x K, rows f_t'; T ≥ 2, all values finite
+     * @param options kernel, bandwidth rule, centering and prewhitening
+     * @return S with the bandwidth actually used and any warnings
+     * @throws IllegalArgumentException for T &lt; 2, K &lt; 1, non-finite values in F, a negative lag
+     *     count, or a bandwidth rule the kernel cannot use
+     */
+    public static LongRunEstimate estimate(DMatrixRMaj moments, LongRunOptions options) {
+        Objects.requireNonNull(options, "options");
+        Autocovariances ac = Autocovariances.of(moments, options.centered());
+        List<String> warnings = new ArrayList<>();
+        if (options.prewhiten()) {
+            throw new IllegalArgumentException("prewhitening is not supported yet");
+        }
+        double b = bandwidth(ac, options, moments.numRows, false, warnings);
+        DMatrixRMaj s = ac.longRun(options.kernel(), b);
+        return new LongRunEstimate(s, options.kernel(), b, options.centered(), false, warnings);
+    }
+
+    private static double bandwidth(Autocovariances ac, LongRunOptions options, int originalT,
+            boolean prewhitened, List<String> warnings) {
+        Kernel kernel = options.kernel();
+        if (kernel == Kernel.NONE) {
+            return 0.0;
+        }
+        BandwidthRule rule = options.bandwidth();
+        double b;
+        if (rule instanceof BandwidthRule.Fixed f) {
+            b = f.bandwidth();
+        } else if (rule instanceof BandwidthRule.Lags l) {
+            b = kernel.bandwidthForLags(l.lags());
+        } else if (rule instanceof BandwidthRule.Andrews) {
+            b = Bandwidths.andrews(ac.series(), ac.observations(), ac.columns(), kernel, equalWeights(ac),
+                    warnings);
+        } else if (rule instanceof BandwidthRule.NeweyWest) {
+            b = Bandwidths.neweyWest(ac.series(), ac.observations(), ac.columns(), kernel, equalWeights(ac),
+                    originalT, prewhitened);
+        } else {
+            throw new AssertionError(rule);
+        }
+        if (kernel.isTruncated() && b > ac.maxLag() + 1) {
+            warnings.add("bandwidth " + b + " reaches beyond the " + ac.maxLag()
+                    + " lags the sample has; all available lags were used");
+        }
+        return b;
+    }
+
+    /** DESIGN.md: every moment column counts the same in the automatic bandwidth rules. */
+    private static double[] equalWeights(Autocovariances ac) {
+        double[] w = new double[ac.columns()];
+        java.util.Arrays.fill(w, 1.0);
+        return w;
+    }
+
+    /**
+     * The small-sample factor T/(T - P) applied to S (off by default; P the number of estimated
+     * parameters). Returns a new matrix.
+     *
+     * @throws IllegalArgumentException unless 0 ≤ P &lt; T
+     */
+    public static DMatrixRMaj smallSampleAdjusted(DMatrixRMaj s, int observations, int parameters) {
+        double f = smallSampleFactor(observations, parameters);
+        DMatrixRMaj out = new DMatrixRMaj(s.numRows, s.numCols);
+        CommonOps_DDRM.scale(f, s, out);
+        return out;
+    }
+
+    /**
+     * T/(T - P).
+     *
+     * @throws IllegalArgumentException unless 0 ≤ P &lt; T
+     */
+    public static double smallSampleFactor(int observations, int parameters) {
+        if (parameters < 0 || parameters >= observations) {
+            throw new IllegalArgumentException("small-sample factor T/(T-P) needs 0 <= P < T, got T="
+                    + observations + ", P=" + parameters);
+        }
+        return observations / (double) (observations - parameters);
+    }
+
+    /** Rejects matrices no estimate can be formed from, naming the offending values. */
+    static void validate(DMatrixRMaj f) {
+        Objects.requireNonNull(f, "moments");
+        if (f.numRows < 2) {
+            throw new IllegalArgumentException("long-run covariance needs at least 2 observations (rows), got T="
+                    + f.numRows);
+        }
+        if (f.numCols < 1) {
+            throw new IllegalArgumentException("long-run covariance needs at least 1 moment column, got K="
+                    + f.numCols);
+        }
+        for (int r = 0; r < f.numRows; r++) {
+            for (int c = 0; c < f.numCols; c++) {
+                double v = f.data[r * f.numCols + c];
+                if (!Double.isFinite(v)) {
+                    throw new IllegalArgumentException("moment matrix holds " + v + " at row " + r + ", column "
+                            + c + " (0-based); all values must be finite");
+                }
+            }
+        }
+    }
+}
