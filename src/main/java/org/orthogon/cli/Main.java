@@ -1,7 +1,64 @@
 package org.orthogon.cli;
 
+import java.io.PrintWriter;
+import org.orthogon.data.InputException;
+import org.orthogon.gmm.EstimationException;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+
+/**
+ * The command line: {@code java -jar orthogon.jar <verb> ...}. Exit codes (DESIGN.md section 4):
+ * 0 success, 2 bad input or usage, 3 estimation failed, 1 a bug in Orthogon.
+ */
+@Command(name = "orthogon", mixinStandardHelpOptions = true, versionProvider = Version.class,
+        description = "Tests whether a stochastic discount factor prices a set of test assets, by GMM.",
+        subcommands = {FitCommand.class, SimulateCommand.class, CommandLine.HelpCommand.class})
 public final class Main {
+    public static final int EXIT_OK = 0;
+    public static final int EXIT_BUG = 1;
+    public static final int EXIT_INPUT = 2;
+    public static final int EXIT_ESTIMATION = 3;
+
     public static void main(String[] args) {
         System.setProperty("java.awt.headless", "true");
+        System.exit(run(new PrintWriter(System.out, true), new PrintWriter(System.err, true), args));
+    }
+
+    /** Runs one command with the given streams; returns the exit code. Used by main and by the tests. */
+    public static int run(PrintWriter out, PrintWriter err, String... args) {
+        boolean debug = java.util.Arrays.asList(args).contains("--debug");
+        CommandLine line = new CommandLine(new Main());
+        line.setOut(out);
+        line.setErr(err);
+        line.setParameterExceptionHandler((ex, arguments) -> {
+            err.println("usage error: " + ex.getMessage());
+            err.println("  fix: see `orthogon " + (ex.getCommandLine().getCommandName()) + " --help`");
+            return EXIT_INPUT;
+        });
+        line.setExecutionExceptionHandler((ex, commandLine, parseResult) -> {
+            if (ex instanceof InputException input) {
+                err.println("error: " + input.getMessage());
+                return EXIT_INPUT;
+            }
+            if (ex instanceof EstimationException estimation) {
+                err.println("estimation failed: " + estimation.getMessage());
+                for (String diagnostic : estimation.diagnostics()) {
+                    err.println("  " + diagnostic);
+                }
+                err.println("  fix: " + estimation.fix());
+                return EXIT_ESTIMATION;
+            }
+            err.println("internal error (a bug in Orthogon): " + ex);
+            if (debug) {
+                ex.printStackTrace(err);
+            } else {
+                err.println("  run again with --debug for the stack trace, and report it");
+            }
+            return EXIT_BUG;
+        });
+        int code = line.execute(args);
+        out.flush();
+        err.flush();
+        return code;
     }
 }

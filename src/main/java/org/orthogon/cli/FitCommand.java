@@ -1,0 +1,60 @@
+package org.orthogon.cli;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.concurrent.Callable;
+import org.orthogon.gmm.GmmEstimator;
+import org.orthogon.gmm.GmmFit;
+import org.orthogon.gmm.GmmOptions;
+import org.orthogon.report.ConsoleReport;
+import org.orthogon.report.JsonResults;
+import org.orthogon.spec.ModelAssembler;
+import org.orthogon.spec.ModelFile;
+import org.orthogon.spec.PreparedRun;
+import org.orthogon.spec.RunSpec;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+
+/** {@code fit MODEL.toml}: estimate one model and report parameters, the J test and the pricing errors. */
+@Command(name = "fit", mixinStandardHelpOptions = true,
+        description = {"Estimates the SDF parameters of one model file by GMM and prints the parameter table, "
+                + "the test of the overidentifying restrictions and one pricing error per test asset.",
+            "Options given here replace the model file's [estimation] choices for this run only."})
+final class FitCommand implements Callable<Integer> {
+    @Parameters(index = "0", paramLabel = "MODEL.toml", description = "the model file")
+    Path modelFile;
+
+    @Mixin
+    EstimationOverrides overrides;
+
+    @Option(names = "--json", paramLabel = "FILE", description = "also write the results as JSON to FILE")
+    Path json;
+
+    @Option(names = "--quiet", description = "print nothing on success (errors still go to standard error)")
+    boolean quiet;
+
+    @Option(names = "--debug", description = "show a stack trace when Orthogon itself fails")
+    boolean debug;
+
+    @picocli.CommandLine.Spec
+    picocli.CommandLine.Model.CommandSpec commandSpec;
+
+    @Override
+    public Integer call() {
+        RunSpec spec = overrides.apply(ModelFile.read(modelFile));
+        PreparedRun prepared = ModelAssembler.prepare(spec);
+        GmmFit fit = GmmEstimator.estimate(prepared.moments(), prepared.startValues(),
+                new GmmOptions(spec.estimation().method(), spec.estimation().longRunOptions()));
+        if (json != null) {
+            OutputFiles.writeAtomically(json, JsonResults.text(JsonResults.fit(spec, prepared.sample(), fit)));
+        }
+        if (!quiet) {
+            PrintWriter out = commandSpec.commandLine().getOut();
+            out.print(ConsoleReport.render(spec, prepared.sample(), fit, prepared.notes()));
+            out.flush();
+        }
+        return Main.EXIT_OK;
+    }
+}

@@ -1,0 +1,94 @@
+package org.orthogon.report;
+
+import java.util.List;
+import org.orthogon.gmm.ChiSquareTest;
+import org.orthogon.gmm.GmmFit;
+import org.orthogon.gmm.ParameterEstimate;
+import org.orthogon.gmm.PricingError;
+import org.orthogon.spec.RunSpec;
+import org.orthogon.spec.SampleInfo;
+import tools.jackson.databind.json.JsonMapper;
+import tools.jackson.databind.node.ArrayNode;
+import tools.jackson.databind.node.ObjectNode;
+import tools.jackson.databind.SerializationFeature;
+
+/**
+ * The results JSON of DESIGN.md section 4. Field names are a contract: add, never rename. Numbers
+ * are decimals at full double precision; a value that does not exist (a p-value with zero degrees
+ * of freedom) is written as null.
+ */
+public final class JsonResults {
+    private static final JsonMapper MAPPER = JsonMapper.builder().enable(SerializationFeature.INDENT_OUTPUT).build();
+
+    private JsonResults() {
+    }
+
+    /** The results object of one fit. */
+    public static ObjectNode fit(RunSpec spec, SampleInfo sample, GmmFit fit) {
+        ObjectNode root = MAPPER.createObjectNode();
+        root.put("title", spec.title());
+        root.put("family", spec.model().family().id());
+        root.put("method", fit.method().id());
+        ObjectNode sampleNode = root.putObject("sample");
+        sampleNode.put("start", sample.start());
+        sampleNode.put("end", sample.end());
+        sampleNode.put("observations", sample.observations());
+        sampleNode.put("frequency", sample.frequency());
+        ObjectNode longRun = root.putObject("long_run_covariance");
+        longRun.put("kernel", fit.longRun().kernel().id());
+        number(longRun, "bandwidth", fit.longRun().bandwidth());
+        longRun.put("prewhitened", fit.longRun().prewhitened());
+        longRun.put("centered", fit.longRun().centered());
+        ArrayNode parameters = root.putArray("parameters");
+        for (ParameterEstimate p : fit.parameters()) {
+            ObjectNode node = parameters.addObject();
+            node.put("name", p.name());
+            number(node, "estimate", p.estimate());
+            number(node, "std_error", p.stdError());
+            number(node, "t_stat", p.tStat());
+            number(node, "p_value", p.pValue());
+        }
+        test(root.putObject("overidentification"), fit.overidentification());
+        ArrayNode errors = root.putArray("pricing_errors");
+        for (PricingError e : fit.pricingErrors()) {
+            ObjectNode node = errors.addObject();
+            node.put("asset", e.asset());
+            number(node, "error", e.error());
+            number(node, "std_error", e.stdError());
+            number(node, "t_stat", e.tStat());
+        }
+        test(root.putObject("pricing_errors_joint"), fit.pricingErrorsJoint());
+        root.put("moments", fit.momentCount());
+        root.put("solver_iterations", fit.solverIterations());
+        ArrayNode warnings = root.putArray("warnings");
+        fit.warnings().forEach(warnings::add);
+        root.put("caution", Caution.TEXT);
+        return root;
+    }
+
+    /** Pretty-printed JSON text with a final newline. */
+    public static String text(ObjectNode node) {
+        return MAPPER.writeValueAsString(node) + "\n";
+    }
+
+    private static void test(ObjectNode node, ChiSquareTest test) {
+        node.put("kind", test.kind());
+        number(node, "statistic", test.statistic());
+        node.put("df", test.df());
+        number(node, "p_value", test.pValue());
+    }
+
+    private static void number(ObjectNode node, String field, double value) {
+        if (Double.isFinite(value)) {
+            node.put(field, value);
+        } else {
+            node.putNull(field);
+        }
+    }
+
+    /** Names of the top-level fields every fit object carries (for the contract test). */
+    public static List<String> contractFields() {
+        return List.of("title", "family", "method", "sample", "long_run_covariance", "parameters",
+                "overidentification", "pricing_errors", "pricing_errors_joint");
+    }
+}
