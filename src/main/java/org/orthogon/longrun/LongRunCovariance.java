@@ -42,10 +42,29 @@ public final class LongRunCovariance {
         Prewhitening pw = Prewhitening.fit(ac.series(), ac.observations(), ac.columns());
         // The residuals' autocovariances still divide by the original T (DESIGN.md fine print).
         Autocovariances residuals = Autocovariances.ofSeries(pw.residuals, pw.rows, ac.columns(),
-                ac.observations());
+                ac.observations(), ac.centered());
         double b = bandwidth(residuals, options, moments.numRows, true, warnings);
         DMatrixRMaj s = pw.recolour(residuals.longRun(options.kernel(), b));
         return new LongRunEstimate(s, options.kernel(), b, options.centered(), true, warnings);
+    }
+
+    /**
+     * The estimate of {@link #estimate(DMatrixRMaj, LongRunOptions)} without prewhitening, from
+     * autocovariances computed once, so trying several kernels or bandwidths on the same moments
+     * reuses the Γ_j already formed.
+     *
+     * @param autocovariances Γ_j of the (centered or uncentered) moments
+     * @param kernel the lag window
+     * @param rule how the bandwidth is chosen
+     * @throws IllegalArgumentException for a bandwidth rule the kernel cannot use
+     */
+    public static LongRunEstimate estimate(Autocovariances autocovariances, Kernel kernel, BandwidthRule rule) {
+        Objects.requireNonNull(autocovariances, "autocovariances");
+        LongRunOptions options = new LongRunOptions(kernel, rule, autocovariances.centered(), false);
+        List<String> warnings = new ArrayList<>();
+        double b = bandwidth(autocovariances, options, autocovariances.observations(), false, warnings);
+        DMatrixRMaj s = autocovariances.longRun(kernel, b);
+        return new LongRunEstimate(s, kernel, b, autocovariances.centered(), false, warnings);
     }
 
     private static double bandwidth(Autocovariances ac, LongRunOptions options, int originalT,
