@@ -47,6 +47,18 @@ kernels <- c(truncated = "Truncated", bartlett = "Bartlett", parzen = "Parzen",
 # weights, so weights = 1 for every column is passed explicitly.
 w_equal <- rep(1, ncol(x))
 
+# sandwich's weightsAndrews() drops trailing weights below tol = 1e-7. DESIGN.md's S keeps every
+# lag with a non-zero k(j/b) (a Parzen weight of 4e-8 on the last lag still counts), so the
+# references pass the complete weight vector k(j/b), j = 0..n-1, from sandwich's own kweights().
+full_weights <- function(obj, bw, kernel, prewhite) {
+  nn <- NROW(estfun(obj)) - as.integer(prewhite)
+  w <- kweights(0:(nn - 1) / bw, kernel = kernel)
+  trimmed <- weightsAndrews(obj, bw = bw, kernel = kernel, prewhite = prewhite)
+  stopifnot(isTRUE(all.equal(w[seq_along(trimmed)], trimmed, tolerance = 1e-14)),
+            all(abs(w[-seq_along(trimmed)]) <= 1e-7))
+  w
+}
+
 # ---- an independent direct computation, to confirm the convention --------------------------
 k_direct <- function(z, id) {
   a <- abs(z)
@@ -97,7 +109,7 @@ for (cen in names(mom)) {
 # Every kernel at fixed bandwidths, centered and uncentered. b = 5 is Bartlett lag 4; b = 3.7
 # exercises a real-valued bandwidth.
 for (bw in c(5, 3.7)) for (id in names(kernels)) for (cen in names(mom)) {
-  wts <- weightsAndrews(mom[[cen]], bw = bw, kernel = kernels[[id]], prewhite = 0)
+  wts <- full_weights(mom[[cen]], bw, kernels[[id]], 0)
   S <- meatHAC(mom[[cen]], weights = wts, prewhite = FALSE, adjust = FALSE)
   check(S, direct_S(mom[[cen]]$u, id, bw), paste(id, bw, cen))
   if (cen == "centered") {
@@ -118,7 +130,7 @@ for (pw in c(0L, 1L)) for (cen in names(mom)) {
   for (id in names(kernels)) {
     b <- bwAndrews(mom[[cen]], kernel = kernels[[id]], weights = w_equal, prewhite = pw)
     add_bw("andrews", id, cen, pw == 1L, b)
-    wts <- weightsAndrews(mom[[cen]], bw = b, kernel = kernels[[id]], prewhite = pw)
+    wts <- full_weights(mom[[cen]], b, kernels[[id]], pw)
     S <- meatHAC(mom[[cen]], weights = wts, prewhite = pw, adjust = FALSE)
     add_case(sprintf("%s-andrews-pw%d-%s", id, pw, cen), id, "andrews", b, cen == "centered",
              pw == 1L, S)
@@ -126,7 +138,7 @@ for (pw in c(0L, 1L)) for (cen in names(mom)) {
   for (id in c("bartlett", "parzen", "quadratic-spectral")) {
     b <- bwNeweyWest(mom[[cen]], kernel = kernels[[id]], weights = w_equal, prewhite = pw)
     add_bw("newey-west", id, cen, pw == 1L, b)
-    wts <- weightsAndrews(mom[[cen]], bw = b, kernel = kernels[[id]], prewhite = pw)
+    wts <- full_weights(mom[[cen]], b, kernels[[id]], pw)
     S <- meatHAC(mom[[cen]], weights = wts, prewhite = pw, adjust = FALSE)
     add_case(sprintf("%s-newey-west-pw%d-%s", id, pw, cen), id, "newey-west", b,
              cen == "centered", pw == 1L, S)
@@ -134,7 +146,7 @@ for (pw in c(0L, 1L)) for (cen in names(mom)) {
 }
 # Prewhitened at a fixed bandwidth too, so prewhitening is checked apart from bandwidth choice.
 for (id in c("bartlett", "quadratic-spectral")) for (cen in names(mom)) {
-  wts <- weightsAndrews(mom[[cen]], bw = 5, kernel = kernels[[id]], prewhite = 1)
+  wts <- full_weights(mom[[cen]], 5, kernels[[id]], 1)
   S <- meatHAC(mom[[cen]], weights = wts, prewhite = 1, adjust = FALSE)
   add_case(sprintf("%s-bw5-pw1-%s", id, cen), id, "fixed", 5, cen == "centered", TRUE, S)
 }

@@ -16,11 +16,13 @@ public final class Autocovariances {
     private final int rows;
     private final int cols;
     private final double divisor;
+    private final boolean centered;
     /** Γ_0..Γ_computed, each K x K row-major, back to back. */
     private double[] gammas = new double[0];
     private int computed = -1;
 
-    private Autocovariances(double[] u, int rows, int cols, double divisor) {
+    private Autocovariances(double[] u, int rows, int cols, double divisor, boolean centered) {
+        this.centered = centered;
         this.u = u;
         this.rows = rows;
         this.cols = cols;
@@ -54,12 +56,17 @@ public final class Autocovariances {
                 }
             }
         }
-        return new Autocovariances(u, t, k, t);
+        return new Autocovariances(u, t, k, t, centered);
     }
 
     /** Autocovariances of a row-major series that divide by {@code divisor} instead of its length. */
-    static Autocovariances ofSeries(double[] u, int rows, int cols, double divisor) {
-        return new Autocovariances(u, rows, cols, divisor);
+    static Autocovariances ofSeries(double[] u, int rows, int cols, double divisor, boolean centered) {
+        return new Autocovariances(u, rows, cols, divisor, centered);
+    }
+
+    /** Whether the column means were removed from the moments. */
+    public boolean centered() {
+        return centered;
     }
 
     /** Number of rows of the series. */

@@ -10,7 +10,8 @@ import org.ejml.dense.row.CommonOps_DDRM;
  * Long-run covariance S of GMM moment contributions f_t (rows of a T x K matrix F), the
  * "S" of Hansen (1982): S = Γ_0 + Σ_{j≥1} k(j/b)(Γ_j + Γ_j'), Γ_j = (1/T) Σ_{t=j+1..T} u_t u_{t-j}',
  * u_t = f_t - mean f (centered, the default) or u_t = f_t. Kernels after Andrews (1991); Bartlett
- * with b = L + 1 is Newey and West (1987). Pure functions, no I/O.
+ * with b = L + 1 is Newey and West (1987); optional VAR(1) prewhitening after Andrews and
+ * Monahan (1992). Pure functions, no I/O.
  */
 public final class LongRunCovariance {
 
@@ -19,22 +20,51 @@ public final class LongRunCovariance {
     /**
      * Estimates S from the moment contributions.
      *
+     * <p>With prewhitening, u_t = A u_{t-1} + e_t is fitted by OLS without intercept, the kernel
+     * and the automatic bandwidth act on the T - 1 residuals (autocovariances still divided by T),
+     * and S = (I - A)^{-1} S_e (I - A)^{-1}'.
+     *
      * @param moments F, T x K, rows f_t'; T ≥ 2, all values finite
      * @param options kernel, bandwidth rule, centering and prewhitening
      * @return S with the bandwidth actually used and any warnings
      * @throws IllegalArgumentException for T &lt; 2, K &lt; 1, non-finite values in F, a negative lag
-     *     count, or a bandwidth rule the kernel cannot use
+     *     count, a bandwidth rule the kernel cannot use, or prewhitening with I - A near singular
      */
     public static LongRunEstimate estimate(DMatrixRMaj moments, LongRunOptions options) {
         Objects.requireNonNull(options, "options");
         Autocovariances ac = Autocovariances.of(moments, options.centered());
         List<String> warnings = new ArrayList<>();
-        if (options.prewhiten()) {
-            throw new IllegalArgumentException("prewhitening is not supported yet");
+        if (!options.prewhiten()) {
+            double b = bandwidth(ac, options, moments.numRows, false, warnings);
+            DMatrixRMaj s = ac.longRun(options.kernel(), b);
+            return new LongRunEstimate(s, options.kernel(), b, options.centered(), false, warnings);
         }
-        double b = bandwidth(ac, options, moments.numRows, false, warnings);
-        DMatrixRMaj s = ac.longRun(options.kernel(), b);
-        return new LongRunEstimate(s, options.kernel(), b, options.centered(), false, warnings);
+        Prewhitening pw = Prewhitening.fit(ac.series(), ac.observations(), ac.columns());
+        // The residuals' autocovariances still divide by the original T (DESIGN.md fine print).
+        Autocovariances residuals = Autocovariances.ofSeries(pw.residuals, pw.rows, ac.columns(),
+                ac.observations(), ac.centered());
+        double b = bandwidth(residuals, options, moments.numRows, true, warnings);
+        DMatrixRMaj s = pw.recolour(residuals.longRun(options.kernel(), b));
+        return new LongRunEstimate(s, options.kernel(), b, options.centered(), true, warnings);
+    }
+
+    /**
+     * The estimate of {@link #estimate(DMatrixRMaj, LongRunOptions)} without prewhitening, from
+     * autocovariances computed once, so trying several kernels or bandwidths on the same moments
+     * reuses the Γ_j already formed.
+     *
+     * @param autocovariances Γ_j of the (centered or uncentered) moments
+     * @param kernel the lag window
+     * @param rule how the bandwidth is chosen
+     * @throws IllegalArgumentException for a bandwidth rule the kernel cannot use
+     */
+    public static LongRunEstimate estimate(Autocovariances autocovariances, Kernel kernel, BandwidthRule rule) {
+        Objects.requireNonNull(autocovariances, "autocovariances");
+        LongRunOptions options = new LongRunOptions(kernel, rule, autocovariances.centered(), false);
+        List<String> warnings = new ArrayList<>();
+        double b = bandwidth(autocovariances, options, autocovariances.observations(), false, warnings);
+        DMatrixRMaj s = autocovariances.longRun(kernel, b);
+        return new LongRunEstimate(s, kernel, b, autocovariances.centered(), false, warnings);
     }
 
     private static double bandwidth(Autocovariances ac, LongRunOptions options, int originalT,
