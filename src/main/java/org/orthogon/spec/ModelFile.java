@@ -139,7 +139,17 @@ public final class ModelFile {
         DataSpec dataSpec = parseData(data);
         ModelSpec modelSpec = parseModel(model);
         EstimationSpec estimationSpec = parseEstimation(estimation);
-        return new RunSpec(file, title, dataSpec, modelSpec, estimationSpec);
+        Map<String, Integer> keyLines = new LinkedHashMap<>();
+        for (Map.Entry<String, List<String>> section : Map.of("data", DATA_KEYS, "model", MODEL_KEYS,
+                "estimation", ESTIMATION_KEYS).entrySet()) {
+            for (String key : section.getValue()) {
+                int line = lineOf(section.getKey(), key);
+                if (line > 0 && root.path(section.getKey()).has(key)) {
+                    keyLines.put(section.getKey() + "." + key, line);
+                }
+            }
+        }
+        return new RunSpec(file, title, dataSpec, modelSpec, estimationSpec, keyLines);
     }
 
     private DataSpec parseData(JsonNode data) {

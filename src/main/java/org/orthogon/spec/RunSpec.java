@@ -14,7 +14,17 @@ import org.orthogon.longrun.LongRunOptions;
  * Built by {@link ModelFile#read(Path)}; command-line options replace parts with the {@code with...}
  * methods, so one record describes exactly what a run did.
  */
-public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec model, EstimationSpec estimation) {
+public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec model, EstimationSpec estimation,
+        Map<String, Integer> keyLines) {
+
+    public RunSpec {
+        keyLines = Map.copyOf(keyLines);
+    }
+
+    /** The 1-based line of "section.key" in the model file, 0 when the key was not written there. */
+    public int lineOf(String section, String key) {
+        return keyLines.getOrDefault(section + "." + key, 0);
+    }
 
     /** Paths and conventions of the input files ([data] section). */
     public record DataSpec(
@@ -92,6 +102,6 @@ public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec mod
     }
 
     public RunSpec withEstimation(EstimationSpec replacement) {
-        return new RunSpec(modelFile, title, data, model, replacement);
+        return new RunSpec(modelFile, title, data, model, replacement, keyLines);
     }
 }
