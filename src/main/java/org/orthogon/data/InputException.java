@@ -30,6 +30,14 @@ public final class InputException extends RuntimeException {
         this.fix = fix;
     }
 
+    /**
+     * The same error with {@code context} appended to the problem, e.g. which model-file key asked
+     * for the missing column; file, line, column and fix are kept.
+     */
+    public InputException withContext(String context) {
+        return new InputException(file, line, column, columnName, problem + " " + context, fix);
+    }
+
     /** Starts an error about {@code file}; finish it with {@link Builder#problem} and {@link Builder#fix}. */
     public static Builder in(Path file) {
         return new Builder(file);

@@ -196,7 +196,8 @@ public record SeriesTable(Path source, Frequency frequency, List<Period> dates, 
 
     private InputException missingColumn(String name) {
         String hint = Suggestions.closest(name, columnNames).map(s -> "did you mean \"" + s + "\"? ").orElse("");
-        return InputException.in(source).column(name).problem(
+        // Line 1 is the header row, where the column would have to be named.
+        return InputException.in(source).line(1).column(name).problem(
                 "there is no column named \"" + name + "\"",
                 hint + "the columns are: " + String.join(", ", columnNames));
     }

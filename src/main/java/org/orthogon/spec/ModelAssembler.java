@@ -57,7 +57,8 @@ public final class ModelAssembler {
         ReturnsWithRate returns = readReturnsWithRate(spec);
         SeriesTable gross = ReturnTransforms.toGross(returns.returns(), ReturnKind.fromId(data.returnsKind()),
                 returns.riskfreeGross());
-        SeriesTable macro = CsvSeries.read(macroFile).select(List.of(consumptionColumn));
+        SeriesTable macro = select(spec, "consumption_column", readTable(spec, "macro", macroFile),
+                List.of(consumptionColumn));
         if (gross.frequency().isFinerThan(macro.frequency())) {
             CompoundedSeries compounded = ReturnTransforms.compound(gross, macro.frequency());
             notes.add(gross.frequency().id() + " returns compounded to " + macro.frequency().id()
@@ -114,7 +115,7 @@ public final class ModelAssembler {
                     returns.riskfreeGross());
         }
         Units units = Units.fromId(data.units());
-        SeriesTable factors = CsvSeries.read(factorFile).select(factorColumns);
+        SeriesTable factors = select(spec, "factor_columns", readTable(spec, "factors", factorFile), factorColumns);
         ReturnTransforms.checkPlausible(factors, ReturnKind.EXCESS, units);
         factors = ReturnTransforms.toDecimal(factors, units);
         Aligned aligned = align(spec, excess, List.of(factors), notes);
@@ -127,7 +128,7 @@ public final class ModelAssembler {
 
     private static SeriesTable readReturns(RunSpec spec) {
         RunSpec.DataSpec data = spec.data();
-        SeriesTable returns = CsvSeries.read(data.returns());
+        SeriesTable returns = readTable(spec, "returns", data.returns());
         ReturnKind kind = ReturnKind.fromId(data.returnsKind());
         Units units = Units.fromId(data.units());
         ReturnTransforms.checkPlausible(returns, kind, units);
@@ -161,7 +162,7 @@ public final class ModelAssembler {
         if (data.riskfree().isEmpty()) {
             return Optional.empty();
         }
-        SeriesTable table = CsvSeries.read(data.riskfree().get());
+        SeriesTable table = readTable(spec, "riskfree", data.riskfree().get());
         String column;
         if (data.riskfreeColumn().isPresent()) {
             column = data.riskfreeColumn().get();
@@ -174,7 +175,8 @@ public final class ModelAssembler {
                             "add riskfree_column = \"" + table.columnNames().get(0) + "\" under [data]");
         }
         Units units = Units.fromId(data.units());
-        SeriesTable rate = table.select(List.of(column));
+        SeriesTable rate = data.riskfreeColumn().isPresent()
+                ? select(spec, "data", "riskfree_column", table, List.of(column)) : table.select(List.of(column));
         ReturnTransforms.checkPlausibleRiskfree(rate, ReturnKind.NET, units);
         return Optional.of(ReturnTransforms.toDecimal(rate, units));
     }
@@ -242,7 +244,7 @@ public final class ModelAssembler {
                     .problem("an instruments file is given but instrument_columns is empty",
                             "add instrument_columns = [\"const\", ...] under [model], or remove instruments");
         }
-        SeriesTable table = CsvSeries.read(spec.data().instruments().get());
+        SeriesTable table = readTable(spec, "instruments", spec.data().instruments().get());
         if (table.columnNames().contains(CONSTANT_INSTRUMENT)) {
             throw InputException.in(table.source()).line(1).column(CONSTANT_INSTRUMENT)
                     .problem("the instruments file has a column named \"const\", the name of the built-in column of ones",
@@ -250,7 +252,7 @@ public final class ModelAssembler {
         }
         List<String> fromFile = columns.stream().filter(c -> !c.equals(CONSTANT_INSTRUMENT)).toList();
         return fromFile.isEmpty() ? Optional.of(table.select(List.of(table.columnNames().get(0))))
-                : Optional.of(table.select(fromFile));
+                : Optional.of(select(spec, "instrument_columns", table, fromFile));
     }
 
     private static PreparedRun finish(RunSpec spec, ObservationErrors errors, Aligned aligned, double[] start,
@@ -270,6 +272,37 @@ public final class ModelAssembler {
         SampleInfo sample = new SampleInfo(dates.get(aligned.first()).label(), dates.get(aligned.last()).label(),
                 observations, dates.get(0).frequency().id());
         return new PreparedRun(moments, start, sample, notes);
+    }
+
+    /**
+     * Reads a data file named under [data]; a path that does not exist or is a folder is reported at
+     * the model-file line that names it, because that line is where the fix goes.
+     */
+    private static SeriesTable readTable(RunSpec spec, String key, Path file) {
+        if (!java.nio.file.Files.exists(file)) {
+            throw InputException.in(spec.modelFile()).line(spec.lineOf("data", key))
+                    .problem(key + " names a file that does not exist: " + file,
+                            "correct the path (it is relative to the model file's folder)");
+        }
+        if (java.nio.file.Files.isDirectory(file)) {
+            throw InputException.in(spec.modelFile()).line(spec.lineOf("data", key))
+                    .problem(key + " names a folder, not a file: " + file, "give the path of a CSV file");
+        }
+        return CsvSeries.read(file);
+    }
+
+    private static SeriesTable select(RunSpec spec, String modelKey, SeriesTable table, List<String> names) {
+        return select(spec, "model", modelKey, table, names);
+    }
+
+    /** Selects columns, saying which model-file key asked for a missing one. */
+    private static SeriesTable select(RunSpec spec, String section, String key, SeriesTable table, List<String> names) {
+        try {
+            return table.select(names);
+        } catch (InputException e) {
+            throw e.withContext("(asked for by " + key + " in " + spec.modelFile().getFileName() + ", line "
+                    + spec.lineOf(section, key) + ")");
+        }
     }
 
     private static double[] startValues(RunSpec spec, List<String> parameters, Map<String, Double> defaults) {
