@@ -110,12 +110,8 @@ public final class ReturnTransforms {
     }
 
     private static void checkGross(SeriesTable table, String name, double[] v, Units units) {
-        int negative = firstIndex(v, x -> x < 0);
-        if (negative >= 0) {
-            throw cell(table, negative, name, "the gross return " + v[negative] + " is negative",
-                    "gross returns are payoffs per unit invested and cannot be below 0; if the file holds net or"
-                            + " excess returns, declare returns_kind = \"net\" or \"excess\"");
-        }
+        // The level comes first: net returns declared gross contain negatives too, and "declare net"
+        // is the fix that helps there, not "a gross return cannot be negative".
         double median = median(v);
         if (units == Units.DECIMAL) {
             if (median > 10) {
@@ -137,6 +133,12 @@ public final class ReturnTransforms {
             throw cell(table, t, name, "the value " + v[t] + " is not a plausible gross return in percent (this"
                             + " column's values are around " + round(median) + ", gross returns in percent are around 100)",
                     nearOne ? "declare units = \"decimal\"" : "declare returns_kind = \"net\" or \"excess\"");
+        }
+        int negative = firstIndex(v, x -> x < 0);
+        if (negative >= 0) {
+            throw cell(table, negative, name, "the gross return " + v[negative] + " is negative",
+                    "gross returns are payoffs per unit invested and cannot be below 0; if the file holds net or"
+                            + " excess returns, declare returns_kind = \"net\" or \"excess\"");
         }
     }
 
@@ -361,17 +363,17 @@ public final class ReturnTransforms {
         for (int j = 0; j < columns.length; j++) {
             String name = table.columnNames().get(j);
             double[] v = columns[j];
-            int negative = firstIndex(v, x -> x < 0);
-            if (negative >= 0) {
-                throw cell(table, negative, name, "the gross return " + v[negative] + " is negative",
-                        "compounding multiplies gross returns (1 + r); convert net or excess returns to gross first");
-            }
             if (v.length > 0 && median(v) < 0.5) {
                 int t = firstIndex(v, x -> x < 0.5);
                 throw cell(table, t, name, "the value " + v[t] + " does not look like a gross return (the column is"
                                 + " around " + round(median(v)) + ", gross returns are around 1)",
                         "compounding multiplies gross returns (1 + r); convert net returns to gross first, since"
                                 + " adding or averaging returns across periods is wrong and is not offered");
+            }
+            int negative = firstIndex(v, x -> x < 0);
+            if (negative >= 0) {
+                throw cell(table, negative, name, "the gross return " + v[negative] + " is negative",
+                        "compounding multiplies gross returns (1 + r); convert net or excess returns to gross first");
             }
         }
     }
