@@ -272,7 +272,7 @@ public final class ReturnTransforms {
      * <p>A period the input covers only in part is dropped if it sits at the start or the end of the
      * sample, and reported in the result; in the interior it is refused, because dropping it would
      * leave a hole in the index. Each result row carries the file line of its period's first input
-     * row.
+     * row. A table already at {@code target} frequency is returned unchanged, with nothing dropped.
      *
      * @param gross  decimal gross returns, finer than {@code target}
      * @param target the coarser frequency

@@ -203,6 +203,14 @@ class CsvSeriesTest {
     }
 
     @Test
+    void refusesFileWithoutHeader() {
+        Path f = file(dir, "noheader.csv", "1970-01,0.01,0.02\n1970-02,0.03,0.04\n");
+        InputException e = refusalAt(() -> CsvSeries.read(f), f, 1, 0);
+        assertThat(e.problem()).isEqualTo("the first line looks like data (a date and numbers), not a header");
+        assertThat(e.fix()).contains("add a header line");
+    }
+
+    @Test
     void refusesBlankColumnName() {
         Path f = file(dir, "blank.csv", "date,P01,,P03\n1970-01,1,2,3\n");
         InputException e = refusalAt(() -> CsvSeries.read(f), f, 1, 3);
