@@ -258,7 +258,8 @@ public final class ReturnTransforms {
                         "the excess returns of this column are around " + round(median)
                                 + " instead of near 0, so the returns and the risk-free rate are not both gross"
                                 + " or both net",
-                        "declare returns_kind and the risk-free rate in the same convention (both gross or both net)");
+                        "make the returns and the risk-free rate the same kind before subtracting: both gross or"
+                                + " both net");
             }
         }
         return grossOrNet.withColumns(columns);
@@ -432,8 +433,10 @@ public final class ReturnTransforms {
         return n % 2 == 1 ? s[n / 2] : 0.5 * (s[n / 2 - 1] + s[n / 2]);
     }
 
+    /** Three significant digits without trailing zeros, for "around ..." in messages. */
     private static String round(double x) {
-        return String.format(java.util.Locale.ROOT, "%.3g", x);
+        java.math.BigDecimal rounded = new java.math.BigDecimal(x).round(new java.math.MathContext(3)).stripTrailingZeros();
+        return rounded.scale() < 0 ? rounded.setScale(0).toPlainString() : rounded.toPlainString();
     }
 
     private static String periodWord(Frequency frequency) {

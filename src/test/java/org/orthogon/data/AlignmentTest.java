@@ -81,7 +81,7 @@ class AlignmentTest {
         InputException e = refusal(() -> Alignment.align(mixed, null, null), quarterly);
         assertThat(e.problem()).isEqualTo("this file is quarterly but " + returnsFile + " is monthly; files of different"
                 + " frequencies are not aligned silently");
-        assertThat(e.fix()).contains("compound the gross returns of " + returnsFile + " to quarterly")
+        assertThat(e.fix()).contains("bring " + returnsFile + " to quarterly first: compound its gross returns")
                 .contains("never averaged");
     }
 
