@@ -87,6 +87,45 @@ class ReturnTransformsTest {
         assertThatCode(() -> ReturnTransforms.checkPlausible(percent, ReturnKind.NET, Units.PERCENT)).doesNotThrowAnyException();
     }
 
+    /**
+     * Real monthly index returns (DAX, SMI, CAC, FTSE, 1991-08 to 1998-07), made from R's
+     * EuStockMarkets data set by src/test/resources/reference/eustockmarkets_monthly.R.
+     */
+    private static Path realMonthly() throws Exception {
+        return Path.of(ReturnTransformsTest.class.getResource("/reference/eustockmarkets_monthly.csv").toURI());
+    }
+
+    @Test
+    void realIndexReturnsPassMonthlyAndQuarterlyAndTheirPercentFormIsCaught() throws Exception {
+        Path f = realMonthly();
+        SeriesTable net = CsvSeries.read(f);
+        assertThat(net.rows()).isEqualTo(84);
+        assertThat(net.columnNames()).containsExactly("DAX", "SMI", "CAC", "FTSE");
+        assertThatCode(() -> ReturnTransforms.checkPlausible(net, ReturnKind.NET, Units.DECIMAL)).doesNotThrowAnyException();
+        SeriesTable gross = ReturnTransforms.toGross(net, ReturnKind.NET, null);
+        CompoundedSeries quarterly = ReturnTransforms.compound(gross, Frequency.QUARTERLY);
+        assertThat(quarterly.droppedPartialPeriods()).containsExactly(Period.quarter(1991, 3), Period.quarter(1998, 3));
+        assertThat(quarterly.table().rows()).isEqualTo(27);
+        assertThatCode(() -> ReturnTransforms.checkPlausible(quarterly.table(), ReturnKind.GROSS, Units.DECIMAL))
+                .doesNotThrowAnyException();
+        double[][] percent = net.columns();
+        for (double[] c : percent) {
+            for (int t = 0; t < c.length; t++) {
+                c[t] *= 100;
+            }
+        }
+        SeriesTable inPercent = new SeriesTable(f, Frequency.MONTHLY, net.dates(), net.columnNames(), percent,
+                net.lineNumbers());
+        assertThatCode(() -> ReturnTransforms.checkPlausible(inPercent, ReturnKind.NET, Units.PERCENT))
+                .doesNotThrowAnyException();
+        InputException asDecimal = refusal(() -> ReturnTransforms.checkPlausible(inPercent, ReturnKind.NET, Units.DECIMAL), f);
+        assertThat(asDecimal.columnName()).contains("DAX");
+        assertThat(asDecimal.problem()).contains("looks like percent");
+        InputException asPercent = refusal(() -> ReturnTransforms.checkPlausible(net, ReturnKind.NET, Units.PERCENT), f);
+        assertThat(asPercent.line()).isEqualTo(2);
+        assertThat(asPercent.problem()).contains("look like decimals");
+    }
+
     @Test
     void refusesPercentDeclaredDecimal() {
         Path f = dir.resolve("lumen_percent.csv");
