@@ -34,10 +34,9 @@ public final class Alignment {
                 throw InputException.in(table.source()).problem(
                         "this file is " + table.frequency().id() + " but " + reference.source() + " is "
                                 + frequency.id() + "; files of different frequencies are not aligned silently",
-                        "give all files one frequency: compound the gross returns of "
-                                + (table.frequency().isFinerThan(frequency) ? table.source() : reference.source())
-                                + " to " + coarser(table.frequency(), frequency).id()
-                                + " first (returns are compounded, never averaged)");
+                        "bring " + (table.frequency().isFinerThan(frequency) ? table.source() : reference.source())
+                                + " to " + coarser(table.frequency(), frequency).id() + " first: compound its gross"
+                                + " returns (returns are compounded, never averaged)");
             }
             if (table.rows() == 0) {
                 throw InputException.in(table.source()).problem("the table has no rows",

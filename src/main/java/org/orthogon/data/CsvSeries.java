@@ -300,6 +300,14 @@ public final class CsvSeries {
             throw InputException.in(file).line(header.line).problem(
                     "the header has only one column, so there are no series to read", fix);
         }
+        // Without this check a file lacking its header would lose its first row and name its
+        // columns after numbers, and every later message would be confusing.
+        if (Period.parseNotation(cells.get(0)) != null
+                && cells.subList(1, cells.size()).stream().allMatch(c -> NUMBER.matcher(c).matches())) {
+            throw InputException.in(file).line(header.line).problem(
+                    "the first line looks like data (a date and numbers), not a header",
+                    "add a header line above it: the word date, then one name per column, e.g. date,P01,P02");
+        }
         List<String> names = new ArrayList<>();
         Map<String, Integer> firstColumn = new HashMap<>();
         for (int c = 1; c < cells.size(); c++) {

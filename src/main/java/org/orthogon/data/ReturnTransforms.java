@@ -110,12 +110,8 @@ public final class ReturnTransforms {
     }
 
     private static void checkGross(SeriesTable table, String name, double[] v, Units units) {
-        int negative = firstIndex(v, x -> x < 0);
-        if (negative >= 0) {
-            throw cell(table, negative, name, "the gross return " + v[negative] + " is negative",
-                    "gross returns are payoffs per unit invested and cannot be below 0; if the file holds net or"
-                            + " excess returns, declare returns_kind = \"net\" or \"excess\"");
-        }
+        // The level comes first: net returns declared gross contain negatives too, and "declare net"
+        // is the fix that helps there, not "a gross return cannot be negative".
         double median = median(v);
         if (units == Units.DECIMAL) {
             if (median > 10) {
@@ -137,6 +133,12 @@ public final class ReturnTransforms {
             throw cell(table, t, name, "the value " + v[t] + " is not a plausible gross return in percent (this"
                             + " column's values are around " + round(median) + ", gross returns in percent are around 100)",
                     nearOne ? "declare units = \"decimal\"" : "declare returns_kind = \"net\" or \"excess\"");
+        }
+        int negative = firstIndex(v, x -> x < 0);
+        if (negative >= 0) {
+            throw cell(table, negative, name, "the gross return " + v[negative] + " is negative",
+                    "gross returns are payoffs per unit invested and cannot be below 0; if the file holds net or"
+                            + " excess returns, declare returns_kind = \"net\" or \"excess\"");
         }
     }
 
@@ -256,7 +258,8 @@ public final class ReturnTransforms {
                         "the excess returns of this column are around " + round(median)
                                 + " instead of near 0, so the returns and the risk-free rate are not both gross"
                                 + " or both net",
-                        "declare returns_kind and the risk-free rate in the same convention (both gross or both net)");
+                        "make the returns and the risk-free rate the same kind before subtracting: both gross or"
+                                + " both net");
             }
         }
         return grossOrNet.withColumns(columns);
@@ -270,7 +273,7 @@ public final class ReturnTransforms {
      * <p>A period the input covers only in part is dropped if it sits at the start or the end of the
      * sample, and reported in the result; in the interior it is refused, because dropping it would
      * leave a hole in the index. Each result row carries the file line of its period's first input
-     * row.
+     * row. A table already at {@code target} frequency is returned unchanged, with nothing dropped.
      *
      * @param gross  decimal gross returns, finer than {@code target}
      * @param target the coarser frequency
@@ -361,17 +364,17 @@ public final class ReturnTransforms {
         for (int j = 0; j < columns.length; j++) {
             String name = table.columnNames().get(j);
             double[] v = columns[j];
-            int negative = firstIndex(v, x -> x < 0);
-            if (negative >= 0) {
-                throw cell(table, negative, name, "the gross return " + v[negative] + " is negative",
-                        "compounding multiplies gross returns (1 + r); convert net or excess returns to gross first");
-            }
             if (v.length > 0 && median(v) < 0.5) {
                 int t = firstIndex(v, x -> x < 0.5);
                 throw cell(table, t, name, "the value " + v[t] + " does not look like a gross return (the column is"
                                 + " around " + round(median(v)) + ", gross returns are around 1)",
                         "compounding multiplies gross returns (1 + r); convert net returns to gross first, since"
                                 + " adding or averaging returns across periods is wrong and is not offered");
+            }
+            int negative = firstIndex(v, x -> x < 0);
+            if (negative >= 0) {
+                throw cell(table, negative, name, "the gross return " + v[negative] + " is negative",
+                        "compounding multiplies gross returns (1 + r); convert net or excess returns to gross first");
             }
         }
     }
@@ -430,8 +433,10 @@ public final class ReturnTransforms {
         return n % 2 == 1 ? s[n / 2] : 0.5 * (s[n / 2 - 1] + s[n / 2]);
     }
 
+    /** Three significant digits without trailing zeros, for "around ..." in messages. */
     private static String round(double x) {
-        return String.format(java.util.Locale.ROOT, "%.3g", x);
+        java.math.BigDecimal rounded = new java.math.BigDecimal(x).round(new java.math.MathContext(3)).stripTrailingZeros();
+        return rounded.scale() < 0 ? rounded.setScale(0).toPlainString() : rounded.toPlainString();
     }
 
     private static String periodWord(Frequency frequency) {

@@ -119,6 +119,35 @@ class CsvSeriesTest {
     }
 
     @ParameterizedTest
+    @CsvSource(delimiter = '|', value = {
+            "1970Q3|1970Q4|1971Q1",
+            "1990-03-31|1990-06-30|1990-09-30",
+            "1962|1963|1964",
+            "196201|196202|196203"})
+    void roundTripKeepsTheDatesOfEveryFrequency(String d1, String d2, String d3) {
+        Path in = file(dir, "in.csv", "date,cons_growth,deflator\n" + d1 + ",1.004,1.01\n" + d2 + ",0.998,1.02\n"
+                + d3 + ",1.012,1.005\n");
+        SeriesTable original = CsvSeries.read(in);
+        Path out = dir.resolve("out.csv");
+        CsvSeries.write(original, out);
+        SeriesTable back = CsvSeries.read(out);
+        assertThat(back.frequency()).isEqualTo(original.frequency());
+        assertThat(back.dates()).isEqualTo(original.dates());
+        assertThat(back.column("cons_growth")).containsExactly(1.004, 0.998, 1.012);
+        assertThat(back.column("deflator")).containsExactly(1.01, 1.02, 1.005);
+    }
+
+    @Test
+    void refusesToWriteWhereNoFileCanBe() {
+        Path blocker = file(dir, "blocker", "a plain file where a folder is expected");
+        Path target = blocker.resolve("out.csv");
+        SeriesTable t = CsvSeries.read(file(dir, "in.csv", "date,MKT\n1970-01,0.01\n"));
+        InputException e = refusal(() -> CsvSeries.write(t, target), target);
+        assertThat(e.problem()).startsWith("the file could not be written");
+        assertThat(e.fix()).contains("folder exists and is writable");
+    }
+
+    @ParameterizedTest
     @ValueSource(doubles = {0.1, 0.2, 1.0 / 3, -2.5e-300, 1.7976931348623157e308, 4.9e-324, 0.012345678901234567, 100, 1e21})
     void formattedNumbersReadBackExactly(double value) {
         String text = CsvSeries.formatNumber(value);
@@ -200,6 +229,14 @@ class CsvSeriesTest {
         Path f = file(dir, "semi.csv", "date;P01\n1970-01;0.01\n");
         InputException e = refusalAt(() -> CsvSeries.read(f), f, 1, 0);
         assertThat(e.fix()).contains("commas, not semicolons");
+    }
+
+    @Test
+    void refusesFileWithoutHeader() {
+        Path f = file(dir, "noheader.csv", "1970-01,0.01,0.02\n1970-02,0.03,0.04\n");
+        InputException e = refusalAt(() -> CsvSeries.read(f), f, 1, 0);
+        assertThat(e.problem()).isEqualTo("the first line looks like data (a date and numbers), not a header");
+        assertThat(e.fix()).contains("add a header line");
     }
 
     @Test
