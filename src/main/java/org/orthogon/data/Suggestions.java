@@ -35,6 +35,14 @@ public final class Suggestions {
         return bestDistance <= allowed ? Optional.of(best) : Optional.empty();
     }
 
+    /**
+     * The {@link #closest} candidate as a phrase to append to a fix, " (did you mean \"x\"?)", or the
+     * empty string when nothing is close.
+     */
+    public static String didYouMean(String wanted, Collection<String> candidates) {
+        return closest(wanted, candidates).map(s -> " (did you mean \"" + s + "\"?)").orElse("");
+    }
+
     /** The number of single-character insertions, deletions and substitutions turning a into b. */
     public static int levenshtein(String a, String b) {
         int[] previous = new int[b.length() + 1];

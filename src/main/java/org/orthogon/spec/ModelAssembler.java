@@ -12,6 +12,7 @@ import org.orthogon.data.CompoundedSeries;
 import org.orthogon.data.CsvSeries;
 import org.orthogon.data.Frequency;
 import org.orthogon.data.InputException;
+import org.orthogon.data.Suggestions;
 import org.orthogon.data.Period;
 import org.orthogon.data.ReturnKind;
 import org.orthogon.data.ReturnTransforms;
@@ -312,7 +313,7 @@ public final class ModelAssembler {
                 throw InputException.in(spec.modelFile()).line(spec.lineOf("model", "start_values"))
                         .problem("start_values names \"" + name + "\", which is not a parameter of this model",
                                 "use the parameter names " + parameters
-                                        + org.orthogon.spec.Suggestions.didYouMean(name, parameters));
+                                        + Suggestions.didYouMean(name, parameters));
             }
         }
         double[] start = new double[parameters.size()];

@@ -18,6 +18,7 @@ import java.util.Optional;
 import java.util.Set;
 import java.util.stream.Collectors;
 import org.orthogon.data.InputException;
+import org.orthogon.data.Suggestions;
 import org.orthogon.gmm.EstimationMethod;
 import org.orthogon.longrun.BandwidthRule;
 import org.orthogon.longrun.Kernel;
