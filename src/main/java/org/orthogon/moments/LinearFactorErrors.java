@@ -66,6 +66,14 @@ public final class LinearFactorErrors implements ObservationErrors {
     }
 
     @Override
+    public void payoffs(double[] out) {
+        int n = assetNames.size();
+        for (int t = 0; t < excessReturns.length; t++) {
+            System.arraycopy(excessReturns[t], 0, out, t * n, n);
+        }
+    }
+
+    @Override
     public boolean isLinear() {
         return true;
     }

@@ -34,6 +34,13 @@ public interface MomentModel {
      */
     boolean isLinear();
 
+    /**
+     * The T x K payoffs x_t priced by the moments (gross or excess returns, times the instruments for
+     * scaled moments), so that f_t = m_t x_t - p; G = (1/T) Σ x_t x_t' is the second-moment matrix of
+     * the Hansen-Jagannathan distance.
+     */
+    DMatrixRMaj payoffs();
+
     /** The 1 x K sample mean g_T(θ), as a K x 1 column. */
     default DMatrixRMaj meanMoments(double[] theta) {
         return MomentAlgebra.columnMeans(contributions(theta));

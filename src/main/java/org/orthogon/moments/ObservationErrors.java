@@ -25,6 +25,14 @@ public interface ObservationErrors {
      */
     void errorDerivatives(double[] theta, double[][] out);
 
+    /**
+     * Fills {@code out} (T x N, row-major) with the payoff x_{t,i} that error i prices: the errors have
+     * the form e_t = m_t(θ) x_t - p, with p = 1 for gross returns and p = 0 for excess returns. The
+     * Hansen-Jagannathan distance weights errors by the inverse of E[x x'] (Hansen and Jagannathan
+     * 1997, Journal of Finance 52).
+     */
+    void payoffs(double[] out);
+
     /** True when e_t(θ) is affine in θ. */
     boolean isLinear();
 }

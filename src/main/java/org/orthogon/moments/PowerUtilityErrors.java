@@ -62,6 +62,14 @@ public final class PowerUtilityErrors implements ObservationErrors {
     }
 
     @Override
+    public void payoffs(double[] out) {
+        int n = assetNames.size();
+        for (int t = 0; t < grossReturns.length; t++) {
+            System.arraycopy(grossReturns[t], 0, out, t * n, n);
+        }
+    }
+
+    @Override
     public boolean isLinear() {
         return false;
     }

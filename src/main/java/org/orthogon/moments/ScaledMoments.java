@@ -101,6 +101,19 @@ public final class ScaledMoments implements MomentModel {
     }
 
     @Override
+    public DMatrixRMaj payoffs() {
+        int rows = observations();
+        double[] raw = new double[rows * assets];
+        errors.payoffs(raw);
+        if (instruments == null) {
+            return DMatrixRMaj.wrap(rows, assets, raw);
+        }
+        DMatrixRMaj scaled = new DMatrixRMaj(rows, assets * instrumentCount);
+        kronecker(raw, scaled.data);
+        return scaled;
+    }
+
+    @Override
     public DMatrixRMaj meanJacobian(double[] theta) {
         checkLength(theta);
         int rows = observations();
