@@ -2,17 +2,21 @@ package org.orthogon.cli;
 
 import java.io.PrintWriter;
 import java.nio.file.Path;
+import java.util.List;
 import java.util.concurrent.Callable;
+import org.orthogon.analysis.SensitivityGrid;
 import org.orthogon.gmm.GmmEstimator;
 import org.orthogon.gmm.GmmFit;
 import org.orthogon.gmm.GmmOptions;
 import org.orthogon.report.ConsoleReport;
 import org.orthogon.report.JsonResults;
+import org.orthogon.report.SensitivityReport;
 import org.orthogon.spec.ModelAssembler;
 import org.orthogon.spec.ModelFile;
 import org.orthogon.spec.PreparedRun;
 import org.orthogon.spec.RunSpec;
 import picocli.CommandLine.Command;
+import tools.jackson.databind.node.ObjectNode;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
@@ -32,6 +36,11 @@ final class FitCommand implements Callable<Integer> {
     @Option(names = "--json", paramLabel = "FILE", description = "also write the results as JSON to FILE")
     Path json;
 
+    @Option(names = "--sensitivity", description = "also refit under every kernel and bandwidth choice of the "
+            + "sensitivity grid (HC; Bartlett, Parzen, Tukey-Hanning lags 0-12; QS b = 1-13; Andrews and Newey-West "
+            + "rules; with and without prewhitening) and flag verdicts that differ at 5%%")
+    boolean sensitivity;
+
     @Option(names = "--quiet", description = "print nothing on success (errors still go to standard error)")
     boolean quiet;
 
@@ -47,12 +56,23 @@ final class FitCommand implements Callable<Integer> {
         PreparedRun prepared = ModelAssembler.prepare(spec);
         GmmFit fit = GmmEstimator.estimate(prepared.moments(), prepared.startValues(),
                 new GmmOptions(spec.estimation().method(), spec.estimation().longRunOptions()));
+        List<SensitivityGrid.SensitivityRow> grid = sensitivity
+                ? SensitivityGrid.run(prepared.moments(), prepared.startValues(), fit, spec.estimation().centered(),
+                        choice -> new GmmOptions(spec.estimation().method(), choice))
+                : List.of();
         if (json != null) {
-            OutputFiles.writeAtomically(json, JsonResults.text(JsonResults.fit(spec, prepared.sample(), fit)));
+            ObjectNode results = JsonResults.fit(spec, prepared.sample(), fit);
+            if (sensitivity) {
+                SensitivityReport.addTo(results, grid, prepared.moments().parameterNames());
+            }
+            OutputFiles.writeAtomically(json, JsonResults.text(results));
         }
         if (!quiet) {
             PrintWriter out = commandSpec.commandLine().getOut();
             out.print(ConsoleReport.render(spec, prepared.sample(), fit, prepared.notes()));
+            if (sensitivity) {
+                out.print("\n" + SensitivityReport.render(grid, prepared.moments().parameterNames()));
+            }
             out.flush();
         }
         return Main.EXIT_OK;

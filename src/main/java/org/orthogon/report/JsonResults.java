@@ -78,7 +78,7 @@ public final class JsonResults {
         number(node, "p_value", test.pValue());
     }
 
-    private static void number(ObjectNode node, String field, double value) {
+    static void number(ObjectNode node, String field, double value) {
         if (Double.isFinite(value)) {
             node.put(field, value);
         } else {
