@@ -29,6 +29,10 @@ final class EstimationOverrides {
     @Option(names = "--prewhiten", negatable = true, description = "VAR(1) prewhitening of the moments")
     Boolean prewhiten;
 
+    @Option(names = "--centered", negatable = true,
+            description = "demean the moments before estimating S (--no-centered: use f_t as it is)")
+    Boolean centered;
+
     /** The spec with these options in force. */
     RunSpec apply(RunSpec spec) {
         EstimationSpec e = spec.estimation();
@@ -49,8 +53,9 @@ final class EstimationOverrides {
                     "give a positive number, andrews or newey-west"));
         }
         boolean newPrewhiten = prewhiten == null ? e.prewhiten() : prewhiten;
+        boolean newCentered = centered == null ? e.centered() : centered;
         return spec.withEstimation(new EstimationSpec(newMethod, e.initialWeight(), newKernel, rule, newPrewhiten,
-                e.centered()));
+                newCentered));
     }
 
     private static EstimationMethod parseMethod(String text) {

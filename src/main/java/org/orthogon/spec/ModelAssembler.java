@@ -33,32 +33,39 @@ public final class ModelAssembler {
     /** The built-in instrument column of ones. */
     public static final String CONSTANT_INSTRUMENT = "const";
 
-    private ModelAssembler() {
+    private final RunSpec spec;
+    /** What the preparation did that a reader should know, in the order it happened. */
+    private final List<String> notes = new ArrayList<>();
+    /** Every data file read, for `check` and the run's provenance. */
+    private final List<InputSummary> inputs = new ArrayList<>();
+
+    private ModelAssembler(RunSpec spec) {
+        this.spec = spec;
     }
 
     /** Reads and aligns the data of {@code spec} and builds its moment conditions. */
     public static PreparedRun prepare(RunSpec spec) {
+        ModelAssembler assembler = new ModelAssembler(spec);
         return switch (spec.model().family()) {
-            case POWER_UTILITY -> preparePowerUtility(spec);
-            case LINEAR_FACTOR -> prepareLinearFactor(spec);
+            case POWER_UTILITY -> assembler.preparePowerUtility();
+            case LINEAR_FACTOR -> assembler.prepareLinearFactor();
         };
     }
 
-    private static PreparedRun preparePowerUtility(RunSpec spec) {
+    private PreparedRun preparePowerUtility() {
         RunSpec.DataSpec data = spec.data();
-        String consumptionColumn = spec.model().consumptionColumn().orElseThrow(() -> missingKey(spec, "model",
+        String consumptionColumn = spec.model().consumptionColumn().orElseThrow(() -> missingKey("model",
                 "consumption_column", "the power-utility family needs consumption growth",
                 "add consumption_column = \"cons_growth\" under [model] (gross growth C_t/C_{t-1})"));
-        Path macroFile = data.macro().orElseThrow(() -> missingKey(spec, "data", "macro",
+        Path macroFile = data.macro().orElseThrow(() -> missingKey("data", "macro",
                 "the power-utility family needs a macro file with consumption growth",
                 "add macro = \"path/to/consumption.csv\" under [data]"));
-        rejectUnused(spec, "factor_columns", spec.model().factorColumns());
+        rejectUnused("factor_columns", spec.model().factorColumns());
 
-        List<String> notes = new ArrayList<>();
-        ReturnsWithRate returns = readReturnsWithRate(spec);
+        ReturnsWithRate returns = readReturnsWithRate();
         SeriesTable gross = ReturnTransforms.toGross(returns.returns(), ReturnKind.fromId(data.returnsKind()),
                 returns.riskfreeGross());
-        SeriesTable macro = select(spec, "consumption_column", readTable(spec, "macro", macroFile),
+        SeriesTable macro = select("consumption_column", readTable("macro", macroFile),
                 List.of(consumptionColumn));
         if (gross.frequency().isFinerThan(macro.frequency())) {
             CompoundedSeries compounded = ReturnTransforms.compound(gross, macro.frequency());
@@ -71,7 +78,7 @@ public final class ModelAssembler {
                     + " but the returns are " + gross.frequency().id(),
                     "give consumption growth at the frequency of the returns (or a finer return series)");
         }
-        Aligned aligned = align(spec, gross, List.of(macro), notes);
+        Aligned aligned = align(gross, List.of(macro));
         double[] growth = aligned.otherColumns(0)[0];
         for (int t = 0; t < growth.length; t++) {
             if (!(growth[t] > 0)) {
@@ -81,33 +88,32 @@ public final class ModelAssembler {
             }
         }
         ObservationErrors errors = new PowerUtilityErrors(aligned.assetRows(), growth, gross.columnNames());
-        double[] start = startValues(spec, PowerUtilityErrors.PARAMETERS, Map.of("beta", 0.99, "gamma", 2.0));
-        return finish(spec, errors, aligned, start, notes);
+        double[] start = startValues(PowerUtilityErrors.PARAMETERS, Map.of("beta", 0.99, "gamma", 2.0));
+        return finish(errors, aligned, start);
     }
 
-    private static PreparedRun prepareLinearFactor(RunSpec spec) {
+    private PreparedRun prepareLinearFactor() {
         RunSpec.DataSpec data = spec.data();
         List<String> factorColumns = spec.model().factorColumns();
         if (factorColumns.isEmpty()) {
-            throw missingKey(spec, "model", "factor_columns", "the linear-factor family needs factors",
+            throw missingKey("model", "factor_columns", "the linear-factor family needs factors",
                     "add factor_columns = [\"MKT\"] under [model], naming columns of the factors file");
         }
-        Path factorFile = data.factors().orElseThrow(() -> missingKey(spec, "data", "factors",
+        Path factorFile = data.factors().orElseThrow(() -> missingKey("data", "factors",
                 "the linear-factor family needs a factors file", "add factors = \"path/to/factors.csv\" under [data]"));
         if (spec.model().consumptionColumn().isPresent()) {
             throw InputException.in(spec.modelFile()).line(spec.lineOf("model", "consumption_column"))
                     .problem("consumption_column is not used by the linear-factor family",
                             "remove it, or use family = \"power-utility\"");
         }
-        List<String> notes = new ArrayList<>();
         ReturnKind kind = ReturnKind.fromId(data.returnsKind());
         SeriesTable excess;
         if (kind == ReturnKind.EXCESS) {
-            excess = readReturns(spec);
+            excess = readReturns();
         } else {
-            ReturnsWithRate returns = readReturnsWithRate(spec);
+            ReturnsWithRate returns = readReturnsWithRate();
             if (returns.riskfreeGross() == null) {
-                throw missingKey(spec, "data", "riskfree", "the linear-factor family prices excess returns, and "
+                throw missingKey("data", "riskfree", "the linear-factor family prices excess returns, and "
                         + data.returnsKind() + " returns need a risk-free rate to become excess returns",
                         "add riskfree = \"path/to/riskfree.csv\" under [data], or give excess returns with "
                                 + "returns_kind = \"excess\"");
@@ -116,20 +122,20 @@ public final class ModelAssembler {
                     returns.riskfreeGross());
         }
         Units units = Units.fromId(data.units());
-        SeriesTable factors = select(spec, "factor_columns", readTable(spec, "factors", factorFile), factorColumns);
+        SeriesTable factors = select("factor_columns", readTable("factors", factorFile), factorColumns);
         ReturnTransforms.checkPlausible(factors, ReturnKind.EXCESS, units);
         factors = ReturnTransforms.toDecimal(factors, units);
-        Aligned aligned = align(spec, excess, List.of(factors), notes);
+        Aligned aligned = align(excess, List.of(factors));
         double[][] factorRows = transpose(aligned.otherColumns(0));
         ObservationErrors errors = new LinearFactorErrors(aligned.assetRows(), factorRows, excess.columnNames(),
                 factorColumns);
-        double[] start = startValues(spec, errors.parameterNames(), Map.of());
-        return finish(spec, errors, aligned, start, notes);
+        double[] start = startValues(errors.parameterNames(), Map.of());
+        return finish(errors, aligned, start);
     }
 
-    private static SeriesTable readReturns(RunSpec spec) {
+    private SeriesTable readReturns() {
         RunSpec.DataSpec data = spec.data();
-        SeriesTable returns = readTable(spec, "returns", data.returns());
+        SeriesTable returns = readTable("returns", data.returns());
         ReturnKind kind = ReturnKind.fromId(data.returnsKind());
         Units units = Units.fromId(data.units());
         ReturnTransforms.checkPlausible(returns, kind, units);
@@ -140,9 +146,9 @@ public final class ModelAssembler {
      * The returns and, when a risk-free file is given, the gross risk-free rate on the dates both
      * share (the rate is a net rate per period in the declared units).
      */
-    private static ReturnsWithRate readReturnsWithRate(RunSpec spec) {
-        SeriesTable returns = readReturns(spec);
-        Optional<SeriesTable> riskfree = readRiskfree(spec);
+    private ReturnsWithRate readReturnsWithRate() {
+        SeriesTable returns = readReturns();
+        Optional<SeriesTable> riskfree = readRiskfree();
         if (riskfree.isEmpty()) {
             return new ReturnsWithRate(returns, null);
         }
@@ -158,12 +164,12 @@ public final class ModelAssembler {
     private record ReturnsWithRate(SeriesTable returns, double[] riskfreeGross) {
     }
 
-    private static Optional<SeriesTable> readRiskfree(RunSpec spec) {
+    private Optional<SeriesTable> readRiskfree() {
         RunSpec.DataSpec data = spec.data();
         if (data.riskfree().isEmpty()) {
             return Optional.empty();
         }
-        SeriesTable table = readTable(spec, "riskfree", data.riskfree().get());
+        SeriesTable table = readTable("riskfree", data.riskfree().get());
         String column;
         if (data.riskfreeColumn().isPresent()) {
             column = data.riskfreeColumn().get();
@@ -177,7 +183,7 @@ public final class ModelAssembler {
         }
         Units units = Units.fromId(data.units());
         SeriesTable rate = data.riskfreeColumn().isPresent()
-                ? select(spec, "data", "riskfree_column", table, List.of(column)) : table.select(List.of(column));
+                ? select("data", "riskfree_column", table, List.of(column)) : table.select(List.of(column));
         ReturnTransforms.checkPlausibleRiskfree(rate, ReturnKind.NET, units);
         return Optional.of(ReturnTransforms.toDecimal(rate, units));
     }
@@ -187,12 +193,12 @@ public final class ModelAssembler {
      * bounds to the dates of the moments, and lags the instruments: the moment dated t uses z_{t-1},
      * so with instruments the row before the first moment must exist in every file.
      */
-    private static Aligned align(RunSpec spec, SeriesTable assets, List<SeriesTable> others, List<String> notes) {
+    private Aligned align(SeriesTable assets, List<SeriesTable> others) {
         List<String> instrumentColumns = spec.model().instrumentColumns();
-        Optional<SeriesTable> instruments = readInstruments(spec, instrumentColumns);
+        Optional<SeriesTable> instruments = readInstruments(instrumentColumns);
         if (!instrumentColumns.isEmpty() && spec.data().instruments().isEmpty()
                 && !instrumentColumns.equals(List.of(CONSTANT_INSTRUMENT))) {
-            throw missingKey(spec, "data", "instruments", "instrument_columns names columns but no instruments file is given",
+            throw missingKey("data", "instruments", "instrument_columns names columns but no instruments file is given",
                     "add instruments = \"path/to/instruments.csv\" under [data], or use only \"const\"");
         }
         List<SeriesTable> tables = new ArrayList<>();
@@ -208,11 +214,11 @@ public final class ModelAssembler {
         int last = dates.size() - 1;
         if (spec.data().start().isPresent()) {
             Period start = Period.parseStart(spec.data().start().get(), frequency);
-            first = Math.max(first, boundIndex(spec, "start", start, dates, lag));
+            first = Math.max(first, boundIndex("start", start, dates, lag));
         }
         if (spec.data().end().isPresent()) {
             Period end = Period.parseEnd(spec.data().end().get(), frequency);
-            last = boundIndex(spec, "end", end, dates, lag);
+            last = boundIndex("end", end, dates, lag);
         }
         if (first > last) {
             throw InputException.in(spec.modelFile()).line(spec.lineOf("data", "start"))
@@ -223,7 +229,7 @@ public final class ModelAssembler {
         return new Aligned(sample, first, last, lag, instrumentColumns);
     }
 
-    private static int boundIndex(RunSpec spec, String key, Period bound, List<Period> dates, int lag) {
+    private int boundIndex(String key, Period bound, List<Period> dates, int lag) {
         Period earliest = dates.get(lag);
         Period latest = dates.get(dates.size() - 1);
         if (bound.compareTo(earliest) < 0 || bound.compareTo(latest) > 0) {
@@ -236,7 +242,7 @@ public final class ModelAssembler {
         return dates.indexOf(bound);
     }
 
-    private static Optional<SeriesTable> readInstruments(RunSpec spec, List<String> columns) {
+    private Optional<SeriesTable> readInstruments(List<String> columns) {
         if (spec.data().instruments().isEmpty()) {
             return Optional.empty();
         }
@@ -245,7 +251,7 @@ public final class ModelAssembler {
                     .problem("an instruments file is given but instrument_columns is empty",
                             "add instrument_columns = [\"const\", ...] under [model], or remove instruments");
         }
-        SeriesTable table = readTable(spec, "instruments", spec.data().instruments().get());
+        SeriesTable table = readTable("instruments", spec.data().instruments().get());
         if (table.columnNames().contains(CONSTANT_INSTRUMENT)) {
             throw InputException.in(table.source()).line(1).column(CONSTANT_INSTRUMENT)
                     .problem("the instruments file has a column named \"const\", the name of the built-in column of ones",
@@ -253,11 +259,10 @@ public final class ModelAssembler {
         }
         List<String> fromFile = columns.stream().filter(c -> !c.equals(CONSTANT_INSTRUMENT)).toList();
         return fromFile.isEmpty() ? Optional.of(table.select(List.of(table.columnNames().get(0))))
-                : Optional.of(select(spec, "instrument_columns", table, fromFile));
+                : Optional.of(select("instrument_columns", table, fromFile));
     }
 
-    private static PreparedRun finish(RunSpec spec, ObservationErrors errors, Aligned aligned, double[] start,
-            List<String> notes) {
+    private PreparedRun finish(ObservationErrors errors, Aligned aligned, double[] start) {
         List<String> instrumentColumns = spec.model().instrumentColumns();
         ScaledMoments moments = instrumentColumns.isEmpty() ? ScaledMoments.unscaled(errors)
                 : ScaledMoments.scaled(errors, aligned.laggedInstruments(), instrumentColumns);
@@ -272,14 +277,14 @@ public final class ModelAssembler {
         List<Period> dates = aligned.sample().dates();
         SampleInfo sample = new SampleInfo(dates.get(aligned.first()).label(), dates.get(aligned.last()).label(),
                 observations, dates.get(0).frequency().id());
-        return new PreparedRun(moments, start, sample, notes);
+        return new PreparedRun(moments, start, sample, notes, inputs, errors.assetNames());
     }
 
     /**
      * Reads a data file named under [data]; a path that does not exist or is a folder is reported at
      * the model-file line that names it, because that line is where the fix goes.
      */
-    private static SeriesTable readTable(RunSpec spec, String key, Path file) {
+    private SeriesTable readTable(String key, Path file) {
         if (!java.nio.file.Files.exists(file)) {
             throw InputException.in(spec.modelFile()).line(spec.lineOf("data", key))
                     .problem(key + " names a file that does not exist: " + file,
@@ -289,15 +294,17 @@ public final class ModelAssembler {
             throw InputException.in(spec.modelFile()).line(spec.lineOf("data", key))
                     .problem(key + " names a folder, not a file: " + file, "give the path of a CSV file");
         }
-        return CsvSeries.read(file);
+        SeriesTable table = CsvSeries.read(file);
+        inputs.add(InputSummary.of(key, table));
+        return table;
     }
 
-    private static SeriesTable select(RunSpec spec, String modelKey, SeriesTable table, List<String> names) {
-        return select(spec, "model", modelKey, table, names);
+    private SeriesTable select(String modelKey, SeriesTable table, List<String> names) {
+        return select("model", modelKey, table, names);
     }
 
     /** Selects columns, saying which model-file key asked for a missing one. */
-    private static SeriesTable select(RunSpec spec, String section, String key, SeriesTable table, List<String> names) {
+    private SeriesTable select(String section, String key, SeriesTable table, List<String> names) {
         try {
             return table.select(names);
         } catch (InputException e) {
@@ -306,7 +313,7 @@ public final class ModelAssembler {
         }
     }
 
-    private static double[] startValues(RunSpec spec, List<String> parameters, Map<String, Double> defaults) {
+    private double[] startValues(List<String> parameters, Map<String, Double> defaults) {
         Map<String, Double> given = spec.model().startValues();
         for (String name : given.keySet()) {
             if (!parameters.contains(name)) {
@@ -323,7 +330,7 @@ public final class ModelAssembler {
         return start;
     }
 
-    private static void rejectUnused(RunSpec spec, String key, List<String> values) {
+    private void rejectUnused(String key, List<String> values) {
         if (!values.isEmpty()) {
             throw InputException.in(spec.modelFile()).line(spec.lineOf("model", key))
                     .problem(key + " is not used by the " + spec.model().family().id() + " family",
@@ -331,7 +338,7 @@ public final class ModelAssembler {
         }
     }
 
-    private static InputException missingKey(RunSpec spec, String section, String key, String problem, String fix) {
+    private InputException missingKey(String section, String key, String problem, String fix) {
         int line = spec.lineOf(section, key);
         return InputException.in(spec.modelFile()).line(line).problem(problem, fix);
     }

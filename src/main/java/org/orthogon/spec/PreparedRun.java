@@ -11,11 +11,16 @@ import org.orthogon.moments.MomentModel;
  * @param sample      the sample the moments cover
  * @param notes       what the data preparation did that a reader should know (dropped partial periods,
  *                    which file limited the sample)
+ * @param inputs      every data file read
+ * @param assets      the N test assets (before any scaling by instruments)
  */
-public record PreparedRun(MomentModel moments, double[] startValues, SampleInfo sample, List<String> notes) {
+public record PreparedRun(MomentModel moments, double[] startValues, SampleInfo sample, List<String> notes,
+        List<InputSummary> inputs, List<String> assets) {
     public PreparedRun {
         startValues = startValues.clone();
         notes = List.copyOf(notes);
+        inputs = List.copyOf(inputs);
+        assets = List.copyOf(assets);
     }
 
     @Override

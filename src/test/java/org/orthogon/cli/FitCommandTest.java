@@ -88,6 +88,17 @@ class FitCommandTest {
     }
 
     @Test
+    void uncenteredAndPrewhitenedOptionsReachTheEstimate() throws IOException {
+        Path json = root.resolve("uncentered.json");
+        CliHarness.Result result = cli.run("fit", cli.models.resolve("lumen-three-factor.toml").toString(),
+                "--no-centered", "--prewhiten", "--json", json.toString(), "--quiet");
+        assertThat(result.code()).as(result.err()).isZero();
+        JsonNode node = JsonMapper.builder().build().readTree(json.toFile());
+        assertThat(node.at("/long_run_covariance/centered").asBoolean()).isFalse();
+        assertThat(node.at("/long_run_covariance/prewhitened").asBoolean()).isTrue();
+    }
+
+    @Test
     void simulateWritesTheDemoFiles() {
         Path out = root.resolve("sim");
         CliHarness.Result result = cli.run("simulate", "--out", out.toString(), "--years", "2", "--quiet");
