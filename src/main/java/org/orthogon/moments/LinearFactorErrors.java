@@ -66,6 +66,17 @@ public final class LinearFactorErrors implements ObservationErrors {
     }
 
     @Override
+    public void discountFactor(double[] b, double[] out) {
+        for (int t = 0; t < factors.length; t++) {
+            double sdf = 1.0;
+            for (int k = 0; k < b.length; k++) {
+                sdf -= b[k] * factors[t][k];
+            }
+            out[t] = sdf;
+        }
+    }
+
+    @Override
     public void payoffs(double[] out) {
         int n = assetNames.size();
         for (int t = 0; t < excessReturns.length; t++) {
@@ -81,15 +92,12 @@ public final class LinearFactorErrors implements ObservationErrors {
     @Override
     public void errors(double[] b, double[] out) {
         int n = assetNames.size();
+        double[] sdf = new double[excessReturns.length];
+        discountFactor(b, sdf);
         for (int t = 0; t < excessReturns.length; t++) {
-            double sdf = 1.0;
-            double[] f = factors[t];
-            for (int k = 0; k < f.length; k++) {
-                sdf -= b[k] * f[k];
-            }
             double[] r = excessReturns[t];
             for (int i = 0; i < n; i++) {
-                out[t * n + i] = r[i] * sdf;
+                out[t * n + i] = r[i] * sdf[t];
             }
         }
     }

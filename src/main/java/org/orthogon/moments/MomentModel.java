@@ -41,6 +41,9 @@ public interface MomentModel {
      */
     DMatrixRMaj payoffs();
 
+    /** The sample mean of the stochastic discount factor, (1/T) Σ_t m_t(θ). */
+    double meanDiscountFactor(double[] theta);
+
     /** The 1 x K sample mean g_T(θ), as a K x 1 column. */
     default DMatrixRMaj meanMoments(double[] theta) {
         return MomentAlgebra.columnMeans(contributions(theta));

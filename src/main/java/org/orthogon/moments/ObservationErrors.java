@@ -33,6 +33,9 @@ public interface ObservationErrors {
      */
     void payoffs(double[] out);
 
+    /** Fills {@code out} (length T) with the stochastic discount factor m_t(θ). */
+    void discountFactor(double[] theta, double[] out);
+
     /** True when e_t(θ) is affine in θ. */
     boolean isLinear();
 }

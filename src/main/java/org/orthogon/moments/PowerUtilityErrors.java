@@ -62,6 +62,13 @@ public final class PowerUtilityErrors implements ObservationErrors {
     }
 
     @Override
+    public void discountFactor(double[] theta, double[] out) {
+        for (int t = 0; t < logGrowth.length; t++) {
+            out[t] = theta[0] * Math.exp(-theta[1] * logGrowth[t]);
+        }
+    }
+
+    @Override
     public void payoffs(double[] out) {
         int n = assetNames.size();
         for (int t = 0; t < grossReturns.length; t++) {

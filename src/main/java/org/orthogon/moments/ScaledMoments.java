@@ -101,6 +101,23 @@ public final class ScaledMoments implements MomentModel {
     }
 
     @Override
+    public double meanDiscountFactor(double[] theta) {
+        checkLength(theta);
+        double[] sdf = new double[observations()];
+        errors.discountFactor(theta, sdf);
+        double sum = 0.0;
+        for (double value : sdf) {
+            sum += value;
+        }
+        return sum / sdf.length;
+    }
+
+    /** True when the moments are the family's errors themselves, not scaled by instruments. */
+    public boolean isUnscaled() {
+        return instruments == null;
+    }
+
+    @Override
     public DMatrixRMaj payoffs() {
         int rows = observations();
         double[] raw = new double[rows * assets];
