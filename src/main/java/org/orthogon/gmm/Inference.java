@@ -29,6 +29,14 @@ public final class Inference {
     }
 
     /**
+     * The efficient weight W = S^{-1} (Hansen 1982, Theorem 3.2), refusing a numerically singular S
+     * rather than regularising it silently.
+     */
+    public static DMatrixRMaj efficientWeight(DMatrixRMaj longRun) {
+        return Matrices.invertSymmetric(longRun, "S, the long-run covariance of the moments");
+    }
+
+    /**
      * Sandwich covariance for any weight W:
      * V = (D'WD)^{-1} D'W S W D (D'WD)^{-1} / T (Hansen 1982, Theorem 3.1).
      */

@@ -23,6 +23,11 @@ public final class JsonResults {
     private JsonResults() {
     }
 
+    /** An empty JSON object to fill. */
+    public static ObjectNode newObject() {
+        return MAPPER.createObjectNode();
+    }
+
     /** The results object of one fit. */
     public static ObjectNode fit(RunSpec spec, SampleInfo sample, GmmFit fit) {
         ObjectNode root = MAPPER.createObjectNode();

@@ -1,0 +1,91 @@
+package org.orthogon.cli;
+
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.Callable;
+import org.orthogon.analysis.ModelComparison;
+import org.orthogon.data.InputException;
+import org.orthogon.report.ComparisonReport;
+import org.orthogon.report.JsonResults;
+import org.orthogon.spec.FittedRun;
+import org.orthogon.spec.ModelFile;
+import org.orthogon.spec.RunSpec;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import tools.jackson.databind.node.ObjectNode;
+
+/** {@code compare A.toml B.toml ...}: several models on the same test assets and sample, side by side. */
+@Command(name = "compare", mixinStandardHelpOptions = true,
+        description = {"Fits several model files that price the same test assets over the same sample and shows "
+                + "them side by side: parameters, the overidentification test, the cross-sectional R2 and pricing "
+                + "errors; nested linear SDFs get the Newey-West (1987) difference test.",
+            "Estimation options given here apply to every model."})
+final class CompareCommand implements Callable<Integer> {
+    @Parameters(arity = "2..*", paramLabel = "MODEL.toml", description = "two or more model files")
+    List<Path> modelFiles;
+
+    @Mixin
+    EstimationOverrides overrides;
+
+    @Option(names = "--json", paramLabel = "FILE", description = "also write the comparison as JSON to FILE")
+    Path json;
+
+    @Option(names = "--quiet", description = "print nothing on success")
+    boolean quiet;
+
+    @Option(names = "--debug", description = "show a stack trace when Orthogon itself fails")
+    boolean debug;
+
+    @picocli.CommandLine.Spec
+    picocli.CommandLine.Model.CommandSpec commandSpec;
+
+    @Override
+    public Integer call() {
+        List<FittedRun> runs = new ArrayList<>();
+        for (Path file : modelFiles) {
+            RunSpec spec = overrides.apply(ModelFile.read(file));
+            FittedRun run = FittedRun.of(spec);
+            if (!runs.isEmpty()) {
+                requireSameAssetsAndSample(runs.get(0), run);
+            }
+            runs.add(run);
+        }
+        List<ModelComparison.Entry> entries = runs.stream().map(run -> new ModelComparison.Entry(run.spec().title(),
+                run.prepared().moments(), run.prepared().startValues(), run.fit())).toList();
+        ModelComparison.Result result = ModelComparison.compare(entries);
+        var sample = runs.get(0).prepared().sample();
+        String sampleLine = sample.frequency() + " " + sample.start() + " to " + sample.end() + " (T = "
+                + sample.observations() + ")";
+        if (json != null) {
+            List<ObjectNode> fits = runs.stream()
+                    .map(run -> JsonResults.fit(run.spec(), run.prepared().sample(), run.fit())).toList();
+            OutputFiles.writeAtomically(json, JsonResults.text(ComparisonReport.json(result, fits)));
+        }
+        if (!quiet) {
+            commandSpec.commandLine().getOut().print(ComparisonReport.render(result, sampleLine));
+            commandSpec.commandLine().getOut().flush();
+        }
+        return Main.EXIT_OK;
+    }
+
+    private static void requireSameAssetsAndSample(FittedRun first, FittedRun other) {
+        if (!first.prepared().moments().momentNames().equals(other.prepared().moments().momentNames())) {
+            throw InputException.in(other.spec().modelFile()).problem("this model prices the moments "
+                    + other.prepared().moments().momentNames() + " but " + first.spec().modelFile().getFileName()
+                    + " prices " + first.prepared().moments().momentNames(),
+                    "compare models on the same test assets (and instruments)");
+        }
+        var a = first.prepared().sample();
+        var b = other.prepared().sample();
+        if (!a.equals(b)) {
+            throw InputException.in(other.spec().modelFile()).problem("this model's sample is " + b.frequency() + " "
+                    + b.start() + " to " + b.end() + " (T = " + b.observations() + ") but "
+                    + first.spec().modelFile().getFileName() + " uses " + a.frequency() + " " + a.start() + " to "
+                    + a.end() + " (T = " + a.observations() + ")",
+                    "set the same start and end under [data] in both model files");
+        }
+    }
+}

@@ -1,0 +1,43 @@
+package org.orthogon.cli;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.io.IOException;
+import java.nio.file.Path;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.databind.json.JsonMapper;
+
+class CompareCommandTest {
+    @TempDir
+    Path root;
+
+    @Test
+    void comparesTheThreeFactorAndMarketOnlyModelsAndTestsTheNesting() throws IOException {
+        CliHarness cli = new CliHarness(root);
+        Path json = root.resolve("compare.json");
+        CliHarness.Result result = cli.run("compare", cli.models.resolve("lumen-three-factor.toml").toString(),
+                cli.models.resolve("lumen-market-only.toml").toString(), "--json", json.toString());
+        assertThat(result.code()).as(result.err()).isZero();
+        assertThat(result.out()).contains("cross-sectional R2").contains("Nested models");
+        JsonNode node = JsonMapper.builder().build().readTree(json.toFile());
+        assertThat(node.get("models")).hasSize(2);
+        assertThat(node.at("/models/0/cross_sectional_r2").isNumber()).isTrue();
+        assertThat(node.at("/models/1/rms_pricing_error").asDouble()).isPositive();
+        JsonNode nested = node.at("/nested_tests/0");
+        assertThat(nested.get("restricted").asString()).isEqualTo("Market-only SDF on the Lumen portfolios");
+        assertThat(nested.get("df").asInt()).isEqualTo(2);
+        // The demo economy prices SIZE and TIDE (docs/demo-scenario.md), so dropping them should be rejected.
+        assertThat(nested.get("p_value").asDouble()).isLessThan(0.05);
+    }
+
+    @Test
+    void refusesModelsOnDifferentAssets() throws IOException {
+        CliHarness cli = new CliHarness(root);
+        CliHarness.Result result = cli.run("compare", cli.models.resolve("lumen-three-factor.toml").toString(),
+                cli.models.resolve("lumen-power-utility.toml").toString());
+        assertThat(result.code()).isEqualTo(Main.EXIT_INPUT);
+        assertThat(result.err()).contains("lumen-power-utility.toml").contains("sample").contains("fix:");
+    }
+}
