@@ -4,6 +4,7 @@ import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.CommonOps_DDRM;
 import org.ejml.dense.row.SingularOps_DDRM;
 import org.ejml.dense.row.factory.LinearSolverFactory_DDRM;
+import org.ejml.interfaces.decomposition.QRPDecomposition_F64;
 import org.ejml.interfaces.linsol.LinearSolverDense;
 
 /**
@@ -20,6 +21,12 @@ final class Prewhitening {
      * makes an absolute threshold scale-free.
      */
     static final double MIN_SINGULAR_VALUE = 1e-8;
+
+    /**
+     * Smallest accepted ratio of the smallest to the largest |r_ii| of the pivoted QR of the lagged
+     * series: below it the columns are collinear to about 12 digits and A is not determined.
+     */
+    static final double MIN_DIAGONAL_RATIO = 1e-12;
 
     final DMatrixRMaj coefficients;
     final DMatrixRMaj recolour;
@@ -53,10 +60,22 @@ final class Prewhitening {
         if (!solver.setA(x.copy())) {
             throw new IllegalArgumentException("VAR(1) prewhitening: the lagged moment matrix is rank deficient");
         }
-        double quality = solver.quality();
-        if (quality < 1e-12) {
+        // EJML's quality() is the product of |r_ii| / max |r_ii|, which underflows with many
+        // well-conditioned columns (K = 43 gave 4e-17); the smallest ratio of the pivoted-QR
+        // diagonal is a rank indicator that does not shrink with K.
+        QRPDecomposition_F64<DMatrixRMaj> qrp = solver.getDecomposition();
+        DMatrixRMaj r = qrp.getR(null, true);
+        double largest = 0.0;
+        double least = Double.POSITIVE_INFINITY;
+        for (int i = 0; i < k; i++) {
+            double d = Math.abs(r.get(i, i));
+            largest = Math.max(largest, d);
+            least = Math.min(least, d);
+        }
+        double ratio = least / largest;
+        if (!(ratio >= MIN_DIAGONAL_RATIO)) {
             throw new IllegalArgumentException("VAR(1) prewhitening: the lagged moment matrix is rank deficient"
-                    + " (solver quality " + quality + ")");
+                    + " (smallest/largest pivoted-QR diagonal " + ratio + ", limit " + MIN_DIAGONAL_RATIO + ")");
         }
         DMatrixRMaj b = new DMatrixRMaj(k, k);
         solver.solve(y, b);

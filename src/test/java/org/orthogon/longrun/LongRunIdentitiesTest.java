@@ -199,4 +199,21 @@ class LongRunIdentitiesTest {
         assertThatThrownBy(() -> LongRunCovariance.smallSampleFactor(5, 5))
                 .isInstanceOf(IllegalArgumentException.class).hasMessageContaining("T=5").hasMessageContaining("P=5");
     }
+
+    @Test
+    void prewhiteningRefusesCollinearColumnsButAcceptsManyIndependentOnes() {
+        DMatrixRMaj f = randomSeries(11, 60, 3);
+        for (int r = 0; r < 60; r++) {
+            f.set(r, 2, 2.0 * f.get(r, 0) - f.get(r, 1));
+        }
+        LongRunOptions pw = new LongRunOptions(Kernel.BARTLETT, new BandwidthRule.Andrews(), true, true);
+        // common practice, no source: a column that is a combination of others leaves A undetermined
+        assertThatThrownBy(() -> LongRunCovariance.estimate(f, pw)).isInstanceOf(IllegalArgumentException.class)
+                .hasMessageContaining("rank deficient");
+        // 60 independent AR(1) columns on 400 rows are far from collinear; the refusal must not grow with K
+        // (a product of diagonal ratios did: it refused K = 43 on T = 134)
+        LongRunEstimate wide = LongRunCovariance.estimate(randomSeries(12, 400, 60), pw);
+        assertThat(wide.prewhitened()).isTrue();
+        assertThat(CommonOps_DDRM.trace(wide.covariance())).isPositive();
+    }
 }
