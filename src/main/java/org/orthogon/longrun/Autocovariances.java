@@ -2,11 +2,16 @@ package org.orthogon.longrun;
 
 import java.util.Arrays;
 import org.ejml.data.DMatrixRMaj;
+import org.ejml.dense.row.CommonOps_DDRM;
+import org.jtransforms.fft.DoubleFFT_1D;
 
 /**
  * The sample autocovariances Γ_j = (1/T) Σ_{t=j+1..T} u_t u_{t-j}' of a series u_t (rows of a
- * T x K matrix), computed once and kept, so that several kernels and bandwidths can be applied to
- * the same series without recomputing them (the quadratic spectral kernel needs all T - 1 lags).
+ * T x K matrix) and the kernel sums over them, with what is costly to form (stored Γ_j, the
+ * columns' Fourier transforms) kept, so that several kernels and bandwidths can be applied to the
+ * same series without recomputing it. The quadratic spectral kernel weights all T - 1 lags; its
+ * sum is formed in the Toeplitz form U'WU/T by FFT, never lag by lag (see
+ * {@link #longRun(Kernel, double, DMatrixRMaj)}).
  *
  * <p>The divisor is T, not T - j (DESIGN.md section 3). Not thread-safe.
  */
@@ -120,14 +125,71 @@ public final class Autocovariances {
         return out;
     }
 
-    /** As {@link #longRun(Kernel, double)}, writing into {@code out} (reshaped to K x K). */
+    /**
+     * As {@link #longRun(Kernel, double)}, writing into {@code out} (reshaped to K x K).
+     *
+     * <p>Two exact routes, chosen from T, K and the number of weighted lags only (never from what
+     * was computed before, so a reused object gives bit for bit what a fresh one gives):
+     * <ul>
+     *   <li>stored lags: Γ_0..Γ_L formed once (T K² (L+1) multiply-adds) and summed with the
+     *       weights; cheapest for L = 0 or K ≤ 2, and then reused by every later kernel and
+     *       bandwidth that needs no more lags;</li>
+     *   <li>Toeplitz form: S = U'(WU)/T with W_ts = k((t-s)/b), the T x T symmetric Toeplitz matrix
+     *       of the weights (algebraically the same sum over lags). WU costs 2TKL for a short
+     *       window, or K real FFTs of length N ≥ 2T - 1 for a long one (the quadratic spectral
+     *       kernel weights all T - 1 lags); the column spectra are kept and reused across kernels
+     *       and bandwidths. Then one T x K by T x K product, T K² multiply-adds, whatever L is,
+     *       instead of T K² (L+1), or T² K²/2 for every lag.</li>
+     * </ul>
+     */
     public void longRun(Kernel kernel, double bandwidth, DMatrixRMaj out) {
         if (!(bandwidth >= 0.0) || Double.isInfinite(bandwidth)) {
             throw new IllegalArgumentException("bandwidth must be a finite number >= 0, got " + bandwidth);
         }
         int last = lastLag(kernel, bandwidth);
-        ensure(last);
         out.reshape(cols, cols);
+        switch (route(last)) {
+            case STORED_LAGS:
+                fromStoredLags(kernel, bandwidth, last, out);
+                break;
+            case BANDED:
+                weightedSeriesBanded(kernel, bandwidth, last);
+                crossProduct(out);
+                break;
+            case FFT:
+                weightedSeriesFft(kernel, bandwidth, last);
+                crossProduct(out);
+                break;
+            default:
+                throw new AssertionError();
+        }
+    }
+
+    /** How {@link #longRun(Kernel, double, DMatrixRMaj)} forms S. */
+    enum Route { STORED_LAGS, BANDED, FFT }
+
+    /**
+     * The cheaper route by multiply-add count for the given last weighted lag. The FFT count,
+     * 1.25 N log2 N per column for one inverse real transform of length N plus N for the product
+     * with the kernel's spectrum, is an estimate (common practice, no source); the column
+     * transforms are paid once per object and not counted.
+     */
+    Route route(int last) {
+        double t = rows;
+        double k = cols;
+        double stored = t * k * k * (last + 1);
+        double product = t * k * k;
+        double banded = product + 2.0 * t * k * last;
+        int n = fftLength();
+        double fft = product + k * (1.25 * n * (Math.log(n) / Math.log(2)) + n);
+        if (stored <= Math.min(banded, fft)) {
+            return Route.STORED_LAGS;
+        }
+        return banded <= fft ? Route.BANDED : Route.FFT;
+    }
+
+    private void fromStoredLags(Kernel kernel, double bandwidth, int last, DMatrixRMaj out) {
+        ensure(last);
         int kk = cols * cols;
         System.arraycopy(gammas, 0, out.data, 0, kk);
         double[] s = out.data;
@@ -143,6 +205,129 @@ public final class Autocovariances {
                 }
             }
         }
+    }
+
+    // Work space of the Toeplitz route, kept between calls so the lag loops never allocate.
+    private DMatrixRMaj weighted;
+    private DMatrixRMaj seriesView;
+    private double[][] spectra;
+    private double[] kernelSpectrum;
+    private double[] column;
+    private DoubleFFT_1D fft;
+
+    private void prepareWeighted() {
+        if (weighted == null) {
+            weighted = new DMatrixRMaj(rows, cols);
+            seriesView = DMatrixRMaj.wrap(rows, cols, u);
+        }
+    }
+
+    /** V = WU for a window of {@code last} lags: V_t = u_t + Σ_j w_j (u_{t-j} + u_{t+j}). */
+    private void weightedSeriesBanded(Kernel kernel, double bandwidth, int last) {
+        prepareWeighted();
+        double[] v = weighted.data;
+        int n = rows * cols;
+        System.arraycopy(u, 0, v, 0, n);
+        for (int j = 1; j <= last; j++) {
+            double w = kernel.weight(j / bandwidth);
+            if (w == 0.0) {
+                continue;
+            }
+            // rows t ≥ j get w u_{t-j}, rows t < T - j get w u_{t+j}: two contiguous axpys
+            int shift = j * cols;
+            int len = n - shift;
+            for (int i = 0; i < len; i++) {
+                v[shift + i] += w * u[i];
+            }
+            for (int i = 0; i < len; i++) {
+                v[i] += w * u[shift + i];
+            }
+        }
+    }
+
+    /**
+     * V = WU by circular convolution of each zero-padded column with the weights c_m = w_|m|
+     * (N ≥ T + last keeps the wrap-around out of rows 0..T-1). c is real and even, so its
+     * transform is real and the product with a column spectrum is a scaling of each frequency.
+     */
+    private void weightedSeriesFft(Kernel kernel, double bandwidth, int last) {
+        prepareWeighted();
+        int n = fftLength();
+        if (spectra == null) {
+            fft = new DoubleFFT_1D(n);
+            kernelSpectrum = new double[n];
+            column = new double[n];
+            spectra = new double[cols][];
+            for (int c = 0; c < cols; c++) {
+                double[] x = new double[n];
+                for (int t = 0; t < rows; t++) {
+                    x[t] = u[t * cols + c];
+                }
+                fft.realForward(x);
+                spectra[c] = x;
+            }
+        }
+        double[] w = kernelSpectrum;
+        Arrays.fill(w, 0.0);
+        w[0] = 1.0;
+        for (int j = 1; j <= last; j++) {
+            double kj = kernel.weight(j / bandwidth);
+            w[j] = kj;
+            w[n - j] = kj;
+        }
+        fft.realForward(w);
+        // realForward packs (Re 0, Re N/2, Re 1, Im 1, ...); for an even c every Im is rounding only
+        double[] v = weighted.data;
+        for (int c = 0; c < cols; c++) {
+            double[] x = spectra[c];
+            column[0] = x[0] * w[0];
+            column[1] = x[1] * w[1];
+            for (int i = 2; i < n; i += 2) {
+                double g = w[i];
+                column[i] = x[i] * g;
+                column[i + 1] = x[i + 1] * g;
+            }
+            fft.realInverse(column, true);
+            for (int t = 0; t < rows; t++) {
+                v[t * cols + c] = column[t];
+            }
+        }
+    }
+
+    /** S = (U'V + V'U)/(2T): U'WU is symmetric, averaging the two triangles makes it exactly so. */
+    private void crossProduct(DMatrixRMaj out) {
+        CommonOps_DDRM.multTransA(seriesView, weighted, out);
+        double[] s = out.data;
+        double scale = 0.5 / divisor;
+        for (int p = 0; p < cols; p++) {
+            s[p * cols + p] /= divisor;
+            for (int q = p + 1; q < cols; q++) {
+                double m = (s[p * cols + q] + s[q * cols + p]) * scale;
+                s[p * cols + q] = m;
+                s[q * cols + p] = m;
+            }
+        }
+    }
+
+    /** Smallest even N ≥ 2T - 1 with no prime factor above 5, so every weighted lag fits and the FFT is fast. */
+    int fftLength() {
+        int n = Math.max(2, 2 * rows - 1);
+        while (!isEvenFiveSmooth(n)) {
+            n++;
+        }
+        return n;
+    }
+
+    private static boolean isEvenFiveSmooth(int n) {
+        if (n % 2 != 0) {
+            return false;
+        }
+        for (int p : new int[] {2, 3, 5}) {
+            while (n % p == 0) {
+                n /= p;
+            }
+        }
+        return n == 1;
     }
 
     /** The last lag that can carry weight: floor(b) for truncated kernels, every lag for QS. */

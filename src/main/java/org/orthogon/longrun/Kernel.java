@@ -13,7 +13,11 @@ import java.util.stream.Collectors;
 public enum Kernel {
     /** No lags: the heteroskedasticity-consistent S = Γ_0 (k(0) = 1, k(x) = 0 otherwise). */
     NONE("none"),
-    /** Truncated (White-Domowitz): k(x) = 1 for |x| ≤ 1, 0 otherwise. */
+    /**
+     * Truncated (White-Domowitz): k(x) = 1 for |x| ≤ 1, 0 otherwise. With b = L it is the
+     * equal-weight estimator of Hansen and Hodrick (1980) for moments built from overlapping
+     * returns; not guaranteed positive semidefinite.
+     */
     TRUNCATED("truncated"),
     /** Bartlett (Newey-West 1987): k(x) = 1 - |x| for |x| ≤ 1, 0 otherwise. */
     BARTLETT("bartlett"),
@@ -95,6 +99,17 @@ public enum Kernel {
      */
     public boolean isTruncated() {
         return this != QUADRATIC_SPECTRAL;
+    }
+
+    /**
+     * Whether every estimate S with this kernel is positive semidefinite whatever the data: true
+     * when k's Fourier transform (the spectral window) is nowhere negative, which holds for the
+     * Bartlett, Parzen and quadratic spectral kernels (and trivially for {@link #NONE}), and fails
+     * for the truncated and Tukey-Hanning kernels (Andrews 1991, section 2; Newey and West 1987 for
+     * Bartlett). Then S = U'WU/T with W_ts = k((t-s)/b) a positive semidefinite Toeplitz matrix.
+     */
+    public boolean guaranteesPositiveSemidefinite() {
+        return this != TRUNCATED && this != TUKEY_HANNING;
     }
 
     /**

@@ -5,6 +5,8 @@ import java.util.List;
 import java.util.Objects;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.CommonOps_DDRM;
+import org.ejml.dense.row.factory.DecompositionFactory_DDRM;
+import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
 
 /**
  * Long-run covariance S of GMM moment contributions f_t (rows of a T x K matrix F), the
@@ -26,7 +28,9 @@ public final class LongRunCovariance {
      *
      * @param moments F, T x K, rows f_t'; T ≥ 2, all values finite
      * @param options kernel, bandwidth rule, centering and prewhitening
-     * @return S with the bandwidth actually used and any warnings
+     * @return S with the bandwidth actually used and any warnings, among them a warning when a
+     *     kernel without a PSD guarantee (truncated, as in Hansen-Hodrick 1980, or Tukey-Hanning)
+     *     gave an S whose smallest eigenvalue is below -1e-12 trace(S)
      * @throws IllegalArgumentException for T &lt; 2, K &lt; 1, non-finite values in F, a negative lag
      *     count, a bandwidth rule the kernel cannot use, or prewhitening with I - A near singular
      */
@@ -37,6 +41,7 @@ public final class LongRunCovariance {
         if (!options.prewhiten()) {
             double b = bandwidth(ac, options, moments.numRows, false, warnings);
             DMatrixRMaj s = ac.longRun(options.kernel(), b);
+            checkPositiveSemidefinite(s, options.kernel(), warnings);
             return new LongRunEstimate(s, options.kernel(), b, options.centered(), false, warnings);
         }
         Prewhitening pw = Prewhitening.fit(ac.series(), ac.observations(), ac.columns());
@@ -45,6 +50,7 @@ public final class LongRunCovariance {
                 ac.observations(), ac.centered());
         double b = bandwidth(residuals, options, moments.numRows, true, warnings);
         DMatrixRMaj s = pw.recolour(residuals.longRun(options.kernel(), b));
+        checkPositiveSemidefinite(s, options.kernel(), warnings);
         return new LongRunEstimate(s, options.kernel(), b, options.centered(), true, warnings);
     }
 
@@ -64,6 +70,7 @@ public final class LongRunCovariance {
         List<String> warnings = new ArrayList<>();
         double b = bandwidth(autocovariances, options, autocovariances.observations(), false, warnings);
         DMatrixRMaj s = autocovariances.longRun(kernel, b);
+        checkPositiveSemidefinite(s, kernel, warnings);
         return new LongRunEstimate(s, kernel, b, autocovariances.centered(), false, warnings);
     }
 
@@ -93,6 +100,46 @@ public final class LongRunCovariance {
                     + " lags the sample has; all available lags were used");
         }
         return b;
+    }
+
+    /**
+     * Tolerance of the PSD check relative to trace(S): rounding in a PSD estimate leaves
+     * eigenvalues of order 1e-16 trace(S) below zero, which must not raise an alarm.
+     */
+    static final double PSD_TOLERANCE = 1e-12;
+
+    /**
+     * Warns when a kernel without a PSD guarantee gave an S with an eigenvalue below
+     * -{@link #PSD_TOLERANCE} trace(S); such an S makes a J statistic or a variance negative.
+     * Kernels with the guarantee are not checked, saving the K^3 eigendecomposition.
+     */
+    private static void checkPositiveSemidefinite(DMatrixRMaj s, Kernel kernel, List<String> warnings) {
+        if (kernel.guaranteesPositiveSemidefinite()) {
+            return;
+        }
+        double smallest = smallestEigenvalue(s);
+        double trace = CommonOps_DDRM.trace(s);
+        if (smallest < -PSD_TOLERANCE * Math.abs(trace)) {
+            String what = kernel == Kernel.TRUNCATED
+                    ? "the truncated-kernel (equal-weight, Hansen-Hodrick 1980) estimate"
+                    : "the " + kernel.id() + " estimate";
+            warnings.add(what + " of S is not positive semidefinite: smallest eigenvalue " + smallest
+                    + " against trace " + trace + "; use the Bartlett kernel, which is always PSD");
+        }
+    }
+
+    /** Smallest eigenvalue of the symmetric matrix s. */
+    static double smallestEigenvalue(DMatrixRMaj s) {
+        EigenDecomposition_F64<DMatrixRMaj> eig = DecompositionFactory_DDRM.eig(s.numRows, false, true);
+        if (!eig.decompose(s.copy())) {
+            throw new IllegalStateException("eigendecomposition of the " + s.numRows + " x " + s.numRows
+                    + " long-run covariance did not converge");
+        }
+        double smallest = Double.POSITIVE_INFINITY;
+        for (int i = 0; i < s.numRows; i++) {
+            smallest = Math.min(smallest, eig.getEigenvalue(i).getReal());
+        }
+        return smallest;
     }
 
     /** DESIGN.md: every moment column counts the same in the automatic bandwidth rules. */

@@ -7,13 +7,11 @@ import static org.assertj.core.api.Assertions.within;
 import java.util.Random;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.CommonOps_DDRM;
-import org.ejml.dense.row.factory.DecompositionFactory_DDRM;
-import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.ValueSource;
 
-/** Identities every long-run covariance estimate must satisfy, on seeded inputs. */
+/** Identities every long-run covariance estimate must satisfy, on seeded inputs (PSD: LongRunPropertiesTest). */
 class LongRunIdentitiesTest {
 
     private static DMatrixRMaj randomSeries(long seed, int t, int k) {
@@ -58,29 +56,6 @@ class LongRunIdentitiesTest {
         CommonOps_DDRM.multTransA(f, f, ftf);
         CommonOps_DDRM.divide(ftf, 50);
         assertThat(ReferenceData.relativeError(raw, ftf)).isLessThan(1e-13);
-    }
-
-    @ParameterizedTest(name = "seed {0}")
-    @ValueSource(longs = {1, 2, 3, 5, 8, 13, 21, 34})
-    void bartlettIsSymmetricPositiveSemidefinite(long seed) {
-        Random rng = new Random(seed);
-        int t = 20 + rng.nextInt(80);
-        int k = 1 + rng.nextInt(6);
-        int lags = rng.nextInt(t);
-        DMatrixRMaj s = LongRunCovariance.estimate(randomSeries(seed, t, k), LongRunOptions.bartlettLags(lags))
-                .covariance();
-        // Newey and West (1987), Econometrica 55(3), 703-708: Bartlett weights make the estimate PSD by construction
-        assertThat(CommonOps_DDRM.trace(s)).isPositive();
-        for (int p = 0; p < k; p++) {
-            for (int q = 0; q < k; q++) {
-                assertThat(s.get(p, q)).isEqualTo(s.get(q, p));
-            }
-        }
-        EigenDecomposition_F64<DMatrixRMaj> eig = DecompositionFactory_DDRM.eig(k, false, true);
-        assertThat(eig.decompose(s.copy())).isTrue();
-        for (int i = 0; i < k; i++) {
-            assertThat(eig.getEigenvalue(i).getReal()).isGreaterThanOrEqualTo(-1e-12 * CommonOps_DDRM.trace(s));
-        }
     }
 
     @ParameterizedTest(name = "seed {0}")
@@ -198,5 +173,22 @@ class LongRunIdentitiesTest {
         assertThat(adj.get(1, 1)).isEqualTo(3.75);
         assertThatThrownBy(() -> LongRunCovariance.smallSampleFactor(5, 5))
                 .isInstanceOf(IllegalArgumentException.class).hasMessageContaining("T=5").hasMessageContaining("P=5");
+    }
+
+    @Test
+    void prewhiteningRefusesCollinearColumnsButAcceptsManyIndependentOnes() {
+        DMatrixRMaj f = randomSeries(11, 60, 3);
+        for (int r = 0; r < 60; r++) {
+            f.set(r, 2, 2.0 * f.get(r, 0) - f.get(r, 1));
+        }
+        LongRunOptions pw = new LongRunOptions(Kernel.BARTLETT, new BandwidthRule.Andrews(), true, true);
+        // common practice, no source: a column that is a combination of others leaves A undetermined
+        assertThatThrownBy(() -> LongRunCovariance.estimate(f, pw)).isInstanceOf(IllegalArgumentException.class)
+                .hasMessageContaining("rank deficient");
+        // 60 independent AR(1) columns on 400 rows are far from collinear; the refusal must not grow with K
+        // (a product of diagonal ratios did: it refused K = 43 on T = 134)
+        LongRunEstimate wide = LongRunCovariance.estimate(randomSeries(12, 400, 60), pw);
+        assertThat(wide.prewhitened()).isTrue();
+        assertThat(CommonOps_DDRM.trace(wide.covariance())).isPositive();
     }
 }
