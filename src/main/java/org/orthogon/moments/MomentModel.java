@@ -41,6 +41,9 @@ public interface MomentModel {
      */
     DMatrixRMaj payoffs();
 
+    /** The same moment conditions on observations [from, to) only (subsample and rolling-window fits). */
+    MomentModel rows(int from, int to);
+
     /** The sample mean of the stochastic discount factor, (1/T) Σ_t m_t(θ). */
     double meanDiscountFactor(double[] theta);
 

@@ -18,12 +18,14 @@ public final class ScaledMoments implements MomentModel {
     private final ObservationErrors errors;
     private final double[][] instruments; // [t][j], already lagged; null when unscaled
     private final List<String> momentNames;
+    private final List<String> instrumentNames;
     private final int assets;
     private final int instrumentCount;
 
     private ScaledMoments(ObservationErrors errors, double[][] laggedInstruments, List<String> instrumentNames) {
         this.errors = Objects.requireNonNull(errors);
         this.assets = errors.assetNames().size();
+        this.instrumentNames = instrumentNames;
         if (laggedInstruments == null) {
             this.instruments = null;
             this.instrumentCount = 1;
@@ -64,6 +66,18 @@ public final class ScaledMoments implements MomentModel {
     public static ScaledMoments scaled(ObservationErrors errors, double[][] laggedInstruments,
             List<String> instrumentNames) {
         return new ScaledMoments(errors, Objects.requireNonNull(laggedInstruments), List.copyOf(instrumentNames));
+    }
+
+    /**
+     * The same moments on observations [from, to) only, for subsample and rolling-window fits; the
+     * instruments are cut to the same rows.
+     */
+    public ScaledMoments rows(int from, int to) {
+        RowWindow window = new RowWindow(errors, from, to);
+        if (instruments == null) {
+            return unscaled(window);
+        }
+        return scaled(window, java.util.Arrays.copyOfRange(instruments, from, to), instrumentNames);
     }
 
     @Override

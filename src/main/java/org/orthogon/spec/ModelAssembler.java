@@ -277,7 +277,8 @@ public final class ModelAssembler {
         List<Period> dates = aligned.sample().dates();
         SampleInfo sample = new SampleInfo(dates.get(aligned.first()).label(), dates.get(aligned.last()).label(),
                 observations, dates.get(0).frequency().id());
-        return new PreparedRun(moments, start, sample, notes, inputs, errors.assetNames());
+        List<String> labels = dates.subList(aligned.first(), aligned.last() + 1).stream().map(Period::label).toList();
+        return new PreparedRun(moments, start, sample, notes, inputs, errors.assetNames(), labels);
     }
 
     /**

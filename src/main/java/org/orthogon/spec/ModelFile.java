@@ -37,13 +37,14 @@ import tools.jackson.dataformat.toml.TomlMapper;
  * keys are errors with a "did you mean" suggestion, never silently ignored.
  */
 public final class ModelFile {
-    private static final Set<String> TOP_LEVEL = Set.of("title", "data", "model", "estimation");
+    private static final Set<String> TOP_LEVEL = Set.of("title", "data", "model", "estimation", "stability");
     private static final List<String> DATA_KEYS = List.of("returns", "returns_kind", "units", "riskfree",
             "riskfree_column", "factors", "macro", "instruments", "start", "end");
     private static final List<String> MODEL_KEYS = List.of("family", "consumption_column", "factor_columns",
             "instrument_columns", "start_values");
     private static final List<String> ESTIMATION_KEYS = List.of("method", "initial_weight", "kernel", "bandwidth",
             "lags", "prewhiten", "centered");
+    private static final List<String> STABILITY_KEYS = List.of("splits", "trimming", "window", "step", "expanding");
     private static final List<String> RETURN_KINDS = List.of("gross", "net", "excess");
     private static final List<String> UNITS = List.of("decimal", "percent");
     private static final List<String> INITIAL_WEIGHTS = List.of("identity");
@@ -136,13 +137,19 @@ public final class ModelFile {
         if (estimation != null) {
             rejectUnknown("estimation", estimation, ESTIMATION_KEYS);
         }
+        JsonNode stability = root.has("stability") ? section("stability") : null;
+        if (stability != null) {
+            rejectUnknown("stability", stability, STABILITY_KEYS);
+        }
         String title = root.has("title") ? string(null, root, "title") : fileStem();
         DataSpec dataSpec = parseData(data);
         ModelSpec modelSpec = parseModel(model);
         EstimationSpec estimationSpec = parseEstimation(estimation);
+        RunSpec.StabilitySpec stabilitySpec = stability == null ? RunSpec.StabilitySpec.defaults()
+                : parseStability(stability);
         Map<String, Integer> keyLines = new LinkedHashMap<>();
         for (Map.Entry<String, List<String>> section : Map.of("data", DATA_KEYS, "model", MODEL_KEYS,
-                "estimation", ESTIMATION_KEYS).entrySet()) {
+                "estimation", ESTIMATION_KEYS, "stability", STABILITY_KEYS).entrySet()) {
             for (String key : section.getValue()) {
                 int line = lineOf(section.getKey(), key);
                 if (line > 0 && root.path(section.getKey()).has(key)) {
@@ -150,7 +157,7 @@ public final class ModelFile {
                 }
             }
         }
-        return new RunSpec(file, title, dataSpec, modelSpec, estimationSpec, keyLines);
+        return new RunSpec(file, title, dataSpec, modelSpec, estimationSpec, stabilitySpec, keyLines);
     }
 
     private DataSpec parseData(JsonNode data) {
@@ -234,6 +241,33 @@ public final class ModelFile {
         }
         return new EstimationSpec(EstimationMethod.fromId(methodId), weight, kernel, rule,
                 bool("estimation", node, "prewhiten", false), bool("estimation", node, "centered", true));
+    }
+
+    private RunSpec.StabilitySpec parseStability(JsonNode node) {
+        double trimming = 0.15;
+        if (node.has("trimming")) {
+            JsonNode value = node.get("trimming");
+            if (!value.isNumber() || !(value.asDouble() > 0 && value.asDouble() < 0.5)) {
+                throw error("stability", "trimming", "trimming must be a number between 0 and 0.5, found " + value,
+                        "write trimming = 0.15 (each side of a break holds at least 15% of the sample)");
+            }
+            trimming = value.asDouble();
+        }
+        Optional<Integer> window = Optional.empty();
+        if (node.has("window")) {
+            window = Optional.of(positiveInteger(node, "window", "window = 120 (observations per rolling window)"));
+        }
+        int step = node.has("step") ? positiveInteger(node, "step", "step = 12") : 1;
+        return new RunSpec.StabilitySpec(stringList("stability", node, "splits"), trimming, window, step,
+                bool("stability", node, "expanding", false));
+    }
+
+    private int positiveInteger(JsonNode node, String key, String example) {
+        JsonNode value = node.get(key);
+        if (!value.isIntegralNumber() || value.asInt() < 1) {
+            throw error("stability", key, key + " must be a whole number >= 1, found " + value, "write " + example);
+        }
+        return value.asInt();
     }
 
     /**

@@ -13,14 +13,16 @@ import org.orthogon.moments.MomentModel;
  *                    which file limited the sample)
  * @param inputs      every data file read
  * @param assets      the N test assets (before any scaling by instruments)
+ * @param dates       the label of every observation of the moments, in order (T of them)
  */
 public record PreparedRun(MomentModel moments, double[] startValues, SampleInfo sample, List<String> notes,
-        List<InputSummary> inputs, List<String> assets) {
+        List<InputSummary> inputs, List<String> assets, List<String> dates) {
     public PreparedRun {
         startValues = startValues.clone();
         notes = List.copyOf(notes);
         inputs = List.copyOf(inputs);
         assets = List.copyOf(assets);
+        dates = List.copyOf(dates);
     }
 
     @Override

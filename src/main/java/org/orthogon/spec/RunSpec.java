@@ -15,7 +15,7 @@ import org.orthogon.longrun.LongRunOptions;
  * methods, so one record describes exactly what a run did.
  */
 public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec model, EstimationSpec estimation,
-        Map<String, Integer> keyLines) {
+        StabilitySpec stability, Map<String, Integer> keyLines) {
 
     public RunSpec {
         keyLines = Map.copyOf(keyLines);
@@ -75,6 +75,27 @@ public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec mod
         }
     }
 
+    /**
+     * Sample-period choices for `stability` ([stability] section; the command line may replace them).
+     *
+     * @param splits    first dates of the later periods of known breaks, as written ("1995-01")
+     * @param trimming  share of the sample each side of an unknown break must hold
+     * @param window    rolling-window length in observations, if rolling windows are wanted
+     * @param step      observations between window ends
+     * @param expanding windows all start at the first observation
+     */
+    public record StabilitySpec(List<String> splits, double trimming, Optional<Integer> window, int step,
+            boolean expanding) {
+        public StabilitySpec {
+            splits = List.copyOf(splits);
+        }
+
+        /** No splits, 15% trimming, no rolling windows. */
+        public static StabilitySpec defaults() {
+            return new StabilitySpec(List.of(), 0.15, Optional.empty(), 1, false);
+        }
+    }
+
     /** The model families this version knows (DESIGN.md section 4). */
     public enum Family {
         POWER_UTILITY("power-utility"),
@@ -102,6 +123,10 @@ public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec mod
     }
 
     public RunSpec withEstimation(EstimationSpec replacement) {
-        return new RunSpec(modelFile, title, data, model, replacement, keyLines);
+        return new RunSpec(modelFile, title, data, model, replacement, stability, keyLines);
+    }
+
+    public RunSpec withStability(StabilitySpec replacement) {
+        return new RunSpec(modelFile, title, data, model, estimation, replacement, keyLines);
     }
 }

@@ -1,0 +1,200 @@
+package org.orthogon.analysis;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.function.IntConsumer;
+import org.ejml.data.DMatrixRMaj;
+import org.ejml.dense.row.CommonOps_DDRM;
+import org.orthogon.gmm.ChiSquareTest;
+import org.orthogon.gmm.EstimationException;
+import org.orthogon.gmm.GmmEstimator;
+import org.orthogon.gmm.GmmFit;
+import org.orthogon.gmm.GmmOptions;
+import org.orthogon.gmm.Inference;
+import org.orthogon.moments.MomentModel;
+
+/**
+ * Does one model's verdict hold across sample periods? Each period is fitted separately with the same
+ * moment conditions and estimator, and the estimates are compared by Wald statistics (Andrews and Fair
+ * 1988, "Inference in nonlinear econometric models with structural change", Review of Economic
+ * Studies 55): for two periods W = (θ_1 - θ_2)' (V_1 + V_2)^{-1} (θ_1 - θ_2) ~ χ²(P), V_i the reported
+ * covariance of θ_i. An unknown break date is handled by the largest such W over the trimmed middle
+ * of the sample (Andrews 1993), compared with {@link SupWaldDistribution}.
+ */
+public final class Stability {
+    /** Default trimming: each side of a break holds at least 15% of the sample (Andrews 1993). */
+    public static final double DEFAULT_TRIMMING = 0.15;
+
+    private Stability() {
+    }
+
+    /** One period's fit: rows [from, to) of the full sample, labelled by their first and last dates. */
+    public record PeriodFit(String start, String end, int from, int to, GmmFit fit) {
+    }
+
+    /** The Wald statistic at one candidate break date (the first date of the second period). */
+    public record BreakPoint(String date, double statistic) {
+    }
+
+    /**
+     * The sup-Wald test of a one-time change at an unknown date.
+     *
+     * @param statistic      the largest Wald statistic over the candidate dates
+     * @param breakDate      the date at which it is reached (first date of the later period)
+     * @param trimming       π0
+     * @param distribution   the simulated null distribution used for critical values and the p-value
+     * @param sequence       the Wald statistic at every candidate date, in date order
+     * @param failedDates    candidate dates where a side's fit failed (left out of the supremum)
+     */
+    public record SupWald(double statistic, String breakDate, double trimming, SupWaldDistribution distribution,
+            List<BreakPoint> sequence, List<String> failedDates) {
+        public SupWald {
+            sequence = List.copyOf(sequence);
+            failedDates = List.copyOf(failedDates);
+        }
+
+        public double pValue() {
+            return distribution.pValue(statistic);
+        }
+    }
+
+    /**
+     * Fits each period between consecutive split points.
+     *
+     * @param dates        labels of the sample's observations
+     * @param splitIndices row indices where a new period starts, increasing, strictly inside (0, T)
+     */
+    public static List<PeriodFit> periods(MomentModel model, double[] start, List<String> dates,
+            List<Integer> splitIndices, GmmOptions options) {
+        List<Integer> bounds = new ArrayList<>();
+        bounds.add(0);
+        bounds.addAll(splitIndices);
+        bounds.add(model.observations());
+        List<PeriodFit> fits = new ArrayList<>();
+        for (int i = 0; i + 1 < bounds.size(); i++) {
+            int from = bounds.get(i);
+            int to = bounds.get(i + 1);
+            if (to <= from) {
+                throw new IllegalArgumentException("split points must increase strictly inside the sample: " + splitIndices);
+            }
+            GmmFit fit;
+            try {
+                fit = GmmEstimator.estimate(model.rows(from, to), start, options);
+            } catch (EstimationException e) {
+                List<String> diagnostics = new ArrayList<>(e.diagnostics());
+                diagnostics.add(0, "period " + dates.get(from) + " to " + dates.get(to - 1));
+                throw new EstimationException(e.getMessage() + " in the period " + dates.get(from) + " to "
+                        + dates.get(to - 1), diagnostics, e.fix());
+            }
+            fits.add(new PeriodFit(dates.get(from), dates.get(to - 1), from, to, fit));
+        }
+        return fits;
+    }
+
+    /**
+     * Wald test that the parameters are equal in all periods: θ stacked over the m periods, R the
+     * (m-1)P x mP matrix of consecutive differences, V block-diagonal in the periods' covariances;
+     * W = (Rθ)' (R V R')^{-1} (Rθ) ~ χ²((m-1)P) (Andrews and Fair 1988, equation 3.6 for m = 2).
+     */
+    public static ChiSquareTest equalityTest(List<PeriodFit> periods) {
+        int m = periods.size();
+        int p = periods.get(0).fit().parameters().size();
+        int rows = (m - 1) * p;
+        DMatrixRMaj difference = new DMatrixRMaj(rows, 1);
+        DMatrixRMaj covariance = new DMatrixRMaj(rows, rows);
+        for (int j = 0; j + 1 < m; j++) {
+            double[] earlier = periods.get(j).fit().estimates();
+            double[] later = periods.get(j + 1).fit().estimates();
+            DMatrixRMaj vEarlier = periods.get(j).fit().covariance();
+            DMatrixRMaj vLater = periods.get(j + 1).fit().covariance();
+            for (int a = 0; a < p; a++) {
+                difference.set(j * p + a, later[a] - earlier[a]);
+                for (int b = 0; b < p; b++) {
+                    covariance.add(j * p + a, j * p + b, vLater.get(a, b) + vEarlier.get(a, b));
+                    if (j + 1 < m - 1) {
+                        covariance.add(j * p + a, (j + 1) * p + b, -vLater.get(a, b));
+                        covariance.add((j + 1) * p + a, j * p + b, -vLater.get(a, b));
+                    }
+                }
+            }
+        }
+        DMatrixRMaj inverse = Inference.efficientWeight(covariance);
+        DMatrixRMaj weighted = new DMatrixRMaj(rows, 1);
+        CommonOps_DDRM.mult(inverse, difference, weighted);
+        return ChiSquareTest.of("andrews-fair-wald", CommonOps_DDRM.dot(difference, weighted), rows);
+    }
+
+    /**
+     * The sup-Wald test over every break index whose both sides hold at least {@code trimming} of the
+     * sample. {@code progress} is told each finished candidate (for a progress bar).
+     */
+    public static SupWald supWald(MomentModel model, double[] start, List<String> dates, GmmOptions options,
+            double trimming, long seed, int draws, IntConsumer progress) {
+        int t = model.observations();
+        List<Integer> candidates = candidateBreaks(t, trimming);
+        if (candidates.isEmpty()) {
+            throw new IllegalArgumentException("no break date leaves " + Math.round(100 * trimming)
+                    + "% of the " + t + " observations on each side");
+        }
+        List<BreakPoint> sequence = new ArrayList<>();
+        List<String> failed = new ArrayList<>();
+        double best = Double.NEGATIVE_INFINITY;
+        String bestDate = null;
+        for (int index : candidates) {
+            try {
+                ChiSquareTest test = equalityTest(periods(model, start, dates, List.of(index), options));
+                sequence.add(new BreakPoint(dates.get(index), test.statistic()));
+                if (test.statistic() > best) {
+                    best = test.statistic();
+                    bestDate = dates.get(index);
+                }
+            } catch (EstimationException | IllegalArgumentException e) {
+                failed.add(dates.get(index));
+            }
+            progress.accept(index);
+        }
+        if (bestDate == null) {
+            throw new EstimationException("no candidate break date could be fitted on both sides",
+                    List.of(failed.size() + " candidate dates failed"), "use a longer sample or a larger trimming");
+        }
+        int parameters = model.parameterCount();
+        return new SupWald(best, bestDate, trimming, SupWaldDistribution.simulate(parameters, trimming, seed, draws),
+                sequence, failed);
+    }
+
+    /** Break indices i with i >= ceil(π0 T) and T - i >= ceil(π0 T). */
+    public static List<Integer> candidateBreaks(int observations, double trimming) {
+        int minimum = (int) Math.ceil(trimming * observations);
+        List<Integer> indices = new ArrayList<>();
+        for (int i = minimum; i <= observations - minimum; i++) {
+            indices.add(i);
+        }
+        return indices;
+    }
+
+    /**
+     * Rolling (fixed length {@code window}) or expanding (from the first observation) windows whose end
+     * moves by {@code step} observations; a window whose fit fails is reported with a null fit.
+     */
+    public static List<PeriodFit> windows(MomentModel model, double[] start, List<String> dates, GmmOptions options,
+            int window, int step, boolean expanding, IntConsumer progress) {
+        int t = model.observations();
+        if (window < 2 || window > t || step < 1) {
+            throw new IllegalArgumentException("need 2 <= window <= " + t + " and step >= 1; got window " + window
+                    + ", step " + step);
+        }
+        List<PeriodFit> fits = new ArrayList<>();
+        for (int end = window; end <= t; end += step) {
+            int from = expanding ? 0 : end - window;
+            GmmFit fit;
+            try {
+                fit = GmmEstimator.estimate(model.rows(from, end), start, options);
+            } catch (EstimationException | IllegalArgumentException e) {
+                fit = null;
+            }
+            fits.add(new PeriodFit(dates.get(from), dates.get(end - 1), from, end, fit));
+            progress.accept(end);
+        }
+        return fits;
+    }
+}
