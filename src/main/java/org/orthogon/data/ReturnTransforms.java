@@ -106,8 +106,28 @@ public final class ReturnTransforms {
             } else {
                 checkNetOrExcess(table, name, v, kind, units, tooSmallForPercent);
             }
+            checkAbsurd(table, name, v, kind, units);
         }
     }
+
+    /**
+     * A single return of more than 1000% in one period (in size, after the declared units) is far more
+     * likely a typing or units mistake in one cell than a real payoff, and one such cell dominates every
+     * moment; it is refused rather than averaged in.
+     */
+    private static void checkAbsurd(SeriesTable table, String name, double[] v, ReturnKind kind, Units units) {
+        double scale = units == Units.PERCENT ? 0.01 : 1.0;
+        double offset = kind == ReturnKind.GROSS ? 1.0 : 0.0;
+        int t = firstIndex(v, x -> Math.abs(x * scale - offset) > ABSURD_RETURN);
+        if (t >= 0) {
+            throw cell(table, t, name, "the " + kind.id() + " return " + v[t] + " is a move of more than "
+                            + Math.round(ABSURD_RETURN * 100) + "% in one " + periodWord(table.frequency()),
+                    "check this cell for a typing or units mistake (returns are per period, in the declared units)");
+        }
+    }
+
+    /** Largest plausible size of one period's net return, as a decimal (1000%). */
+    private static final double ABSURD_RETURN = 10.0;
 
     private static void checkGross(SeriesTable table, String name, double[] v, Units units) {
         // The level comes first: net returns declared gross contain negatives too, and "declare net"

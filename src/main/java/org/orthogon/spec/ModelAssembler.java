@@ -7,6 +7,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import org.orthogon.data.AlignedSample;
+import org.orthogon.data.ColumnChecks;
 import org.orthogon.data.Alignment;
 import org.orthogon.data.CompoundedSeries;
 import org.orthogon.data.CsvSeries;
@@ -124,6 +125,8 @@ public final class ModelAssembler {
         Units units = Units.fromId(data.units());
         SeriesTable factors = select("factor_columns", readTable("factors", factorFile), factorColumns);
         ReturnTransforms.checkPlausible(factors, ReturnKind.EXCESS, units);
+        ColumnChecks.requireVarying(factors, "factor");
+        ColumnChecks.requireIndependent(factors, "factor");
         factors = ReturnTransforms.toDecimal(factors, units);
         Aligned aligned = align(excess, List.of(factors));
         double[][] factorRows = transpose(aligned.otherColumns(0));
@@ -139,6 +142,8 @@ public final class ModelAssembler {
         ReturnKind kind = ReturnKind.fromId(data.returnsKind());
         Units units = Units.fromId(data.units());
         ReturnTransforms.checkPlausible(returns, kind, units);
+        ColumnChecks.requireVarying(returns, "test-asset");
+        ColumnChecks.requireIndependent(returns, "test-asset");
         return ReturnTransforms.toDecimal(returns, units);
     }
 
@@ -258,8 +263,16 @@ public final class ModelAssembler {
                             "rename that column");
         }
         List<String> fromFile = columns.stream().filter(c -> !c.equals(CONSTANT_INSTRUMENT)).toList();
-        return fromFile.isEmpty() ? Optional.of(table.select(List.of(table.columnNames().get(0))))
-                : Optional.of(select("instrument_columns", table, fromFile));
+        if (fromFile.isEmpty()) {
+            return Optional.of(table.select(List.of(table.columnNames().get(0))));
+        }
+        SeriesTable selected = select("instrument_columns", table, fromFile);
+        if (columns.contains(CONSTANT_INSTRUMENT)) {
+            // A constant instrument beside "const" would duplicate it and make S singular.
+            ColumnChecks.requireVarying(selected, "instrument");
+        }
+        ColumnChecks.requireIndependent(selected, "instrument");
+        return Optional.of(selected);
     }
 
     private PreparedRun finish(ObservationErrors errors, Aligned aligned, double[] start) {
