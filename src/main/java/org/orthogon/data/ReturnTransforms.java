@@ -101,12 +101,26 @@ public final class ReturnTransforms {
             if (v.length == 0) {
                 continue;
             }
+            checkMissingCodes(table, name, v);
             if (kind == ReturnKind.GROSS) {
                 checkGross(table, name, v, units);
             } else {
                 checkNetOrExcess(table, name, v, kind, units, tooSmallForPercent);
             }
             checkAbsurd(table, name, v, kind, units);
+        }
+    }
+
+    /**
+     * Published return files often write a missing value as -99.99 or -999; in percent units -99.99
+     * would otherwise pass as a plausible total loss and silently enter every moment (common practice,
+     * no source).
+     */
+    private static void checkMissingCodes(SeriesTable table, String name, double[] v) {
+        int t = firstIndex(v, x -> x == -99.99 || x == -999 || x == -9999 || x == -99.9);
+        if (t >= 0) {
+            throw cell(table, t, name, "the value " + v[t] + " looks like a missing-value code, not a return",
+                    "missing values are not supported: remove the row, or set the sample start/end to exclude it");
         }
     }
 

@@ -68,6 +68,7 @@ public final class ModelAssembler {
                 returns.riskfreeGross());
         SeriesTable macro = select("consumption_column", readTable("macro", macroFile),
                 List.of(consumptionColumn));
+        ColumnChecks.requireVarying(macro, "consumption");
         if (gross.frequency().isFinerThan(macro.frequency())) {
             CompoundedSeries compounded = ReturnTransforms.compound(gross, macro.frequency());
             notes.add(gross.frequency().id() + " returns compounded to " + macro.frequency().id()

@@ -1,0 +1,274 @@
+package org.orthogon.cli;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.Paths;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.function.UnaryOperator;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+import java.util.stream.Stream;
+import org.junit.jupiter.api.DynamicTest;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.TestFactory;
+import org.junit.jupiter.api.io.TempDir;
+
+/**
+ * The refusal catalogue of docs/errors.md, one dynamic test per entry, named by the entry's id. Each
+ * case starts from a private copy of models/ and demo-data/, breaks one thing, runs the command line
+ * in-process and checks the exit code, that the one message names the file, the line (and column),
+ * and a fix, that no stack trace is printed, and that no output file appears. Cases marked "accepted"
+ * are inputs Orthogon reads as they are (a byte-order mark, Windows line endings).
+ */
+class ErrorCatalogueTest {
+    private static final String POWER = "lumen-power-utility.toml";
+    private static final String THREE = "lumen-three-factor.toml";
+    private static final String FACTORS = "lumen-factors-monthly.csv";
+    private static final String PORTFOLIOS = "lumen-portfolios-monthly.csv";
+    private static final String CONSUMPTION = "lumen-consumption-quarterly.csv";
+
+    @TempDir
+    Path root;
+
+    /** One catalogue entry. */
+    record Case(String id, String model, Setup setup, List<String> extraArgs, int exit, String file, int line,
+            List<String> mentions) {
+    }
+
+    @FunctionalInterface
+    interface Setup {
+        void apply(CliHarness cli) throws IOException;
+    }
+
+    private static Case refused(String id, String model, Setup setup, String file, int line, String... mentions) {
+        return new Case(id, model, setup, List.of(), Main.EXIT_INPUT, file, line, List.of(mentions));
+    }
+
+    private static Case accepted(String id, String model, Setup setup) {
+        return new Case(id, model, setup, List.of(), Main.EXIT_OK, null, 0, List.of());
+    }
+
+    private static Case withArgs(Case c, String... args) {
+        return new Case(c.id(), c.model(), c.setup(), List.of(args), c.exit(), c.file(), c.line(), c.mentions());
+    }
+
+    private static Setup editData(String file, UnaryOperator<String> change) {
+        return cli -> {
+            Path path = cli.data.resolve(file);
+            Files.writeString(path, change.apply(Files.readString(path)));
+        };
+    }
+
+    private static Setup replaceInData(String file, String from, String to) {
+        return cli -> cli.edit(cli.data.resolve(file), from, to);
+    }
+
+    private static Setup replaceInModel(String model, String from, String to) {
+        return cli -> cli.edit(cli.models.resolve(model), from, to);
+    }
+
+    private static Setup writeData(String file, String text) {
+        return cli -> Files.writeString(cli.data.resolve(file), text);
+    }
+
+    /** Applies {@code cell} to every numeric cell of a wide CSV (the date column is kept). */
+    private static Setup mapCells(String file, UnaryOperator<String> cell) {
+        return editData(file, text -> {
+            StringBuilder out = new StringBuilder();
+            String[] lines = text.split("\n");
+            out.append(lines[0]).append('\n');
+            for (int i = 1; i < lines.length; i++) {
+                String[] cells = lines[i].split(",");
+                out.append(cells[0]);
+                for (int j = 1; j < cells.length; j++) {
+                    out.append(',').append(cell.apply(cells[j]));
+                }
+                out.append('\n');
+            }
+            return out.toString();
+        });
+    }
+
+    private static String plusOne(String cell) {
+        return new java.math.BigDecimal(cell).add(java.math.BigDecimal.ONE).toPlainString();
+    }
+
+    /** The catalogue, in the order of docs/errors.md. */
+    static List<Case> catalogue() {
+        List<Case> cases = new ArrayList<>();
+        // Data files: structure
+        cases.add(refused("empty-file", THREE, writeData(FACTORS, ""), FACTORS, 0, "empty"));
+        cases.add(refused("header-only", THREE, writeData(FACTORS, "date,MKT,SIZE,TIDE\n"), FACTORS, 0, "no data rows"));
+        cases.add(refused("no-date-column", THREE, writeData(FACTORS, "MKT,SIZE,TIDE\n0.01,0.02,0.03\n0.02,0.01,0.00\n"),
+                FACTORS, 0, "date"));
+        cases.add(accepted("byte-order-mark", THREE, editData(FACTORS, text -> "\uFEFF" + text)));
+        cases.add(refused("semicolon-separator", THREE, editData(FACTORS, text -> text.replace(',', ';')), FACTORS, 1,
+                "semicolon"));
+        cases.add(refused("tab-separator", THREE, editData(FACTORS, text -> text.replace(',', '\t')), FACTORS, 1, "tab"));
+        cases.add(accepted("quoted-numbers", THREE, replaceInData(FACTORS, "1962-02,0.070819,0.029104,0.037514",
+                "1962-02,\"0.070819\",\"0.029104\",\"0.037514\"")));
+        cases.add(refused("thousands-separators", THREE, replaceInData(FACTORS, "1962-02,0.070819",
+                "1962-02,\"1,070.819\""), FACTORS, 3, "column 2", "1,070.819"));
+        cases.add(refused("decimal-commas", THREE, replaceInData(FACTORS, "1962-02,0.070819", "1962-02,\"0,070819\""),
+                FACTORS, 3, "column 2", "decimal separator"));
+        cases.add(accepted("windows-line-endings", THREE, editData(FACTORS, text -> text.replace("\n", "\r\n"))));
+        cases.add(accepted("trailing-blank-lines", THREE, editData(FACTORS, text -> text + "\n\n\n")));
+        cases.add(refused("nan-cell", THREE, replaceInData(FACTORS, "1962-02,0.070819", "1962-02,NaN"), FACTORS, 3,
+                "column 2", "missing"));
+        cases.add(refused("infinite-cell", THREE, replaceInData(FACTORS, "1962-02,0.070819", "1962-02,1e999"), FACTORS, 3,
+                "column 2"));
+        cases.add(refused("empty-cell", THREE, replaceInData(FACTORS, "1962-02,0.070819", "1962-02,"), FACTORS, 3,
+                "column 2", "missing"));
+        cases.add(refused("missing-value-code", THREE, replaceInData(PORTFOLIOS, "1962-02,0.113774", "1962-02,-99.99"),
+                PORTFOLIOS, 3, "missing-value code"));
+        cases.add(refused("duplicate-column-names", THREE, replaceInData(FACTORS, "date,MKT,SIZE,TIDE", "date,MKT,SIZE,MKT"),
+                FACTORS, 1, "twice"));
+        cases.add(refused("ragged-row", THREE, replaceInData(FACTORS, "1962-02,0.070819,", "1962-02,"), FACTORS, 3,
+                "cells"));
+        cases.add(refused("non-numeric-cell", THREE, replaceInData(FACTORS, "1962-02,0.070819", "1962-02,0.07o819"),
+                FACTORS, 3, "column 2", "0.07o819"));
+        // Data files: dates
+        cases.add(refused("duplicate-dates", POWER, replaceInData(CONSUMPTION, "1962Q2,", "1962Q1,"), CONSUMPTION, 3,
+                "1962Q1"));
+        cases.add(refused("unsorted-dates", THREE, editData(FACTORS, text -> {
+            String[] lines = text.split("\n", -1);
+            String swap = lines[3];
+            lines[3] = lines[4];
+            lines[4] = swap;
+            return String.join("\n", lines);
+        }), FACTORS, 5, "sorted"));
+        cases.add(refused("gap-in-monthly-index", THREE, editData(FACTORS, text -> text.replaceFirst("\n1962-03,[^\n]*", "")),
+                FACTORS, 0, "1962-03"));
+        cases.add(refused("mixed-frequencies-in-one-file", THREE, replaceInData(FACTORS, "\n1962-02,", "\n1962Q1,"),
+                FACTORS, 3, "1962Q1"));
+        cases.add(refused("unparseable-date", THREE, replaceInData(FACTORS, "\n1962-02,", "\n1962-13,"), FACTORS, 3,
+                "column 1", "1962-13"));
+        cases.add(refused("dates-outside-declared-sample", POWER, replaceInModel(POWER, "[model]",
+                "start = \"1950-01\"\n\n[model]"), POWER, 12, "1950Q1", "outside"));
+        cases.add(refused("fewer-observations-than-moments", POWER, replaceInModel(POWER, "[model]",
+                "start = \"2023-01\"\n\n[model]"), POWER, 12, "8 observations", "12 moments"));
+        // Data files: values
+        cases.add(refused("linearly-dependent-assets", THREE, editData(PORTFOLIOS, text -> {
+            StringBuilder out = new StringBuilder();
+            for (String line : text.split("\n")) {
+                String[] cells = line.split(",");
+                cells[cells.length - 1] = line.startsWith("date") ? cells[cells.length - 1] : cells[1];
+                out.append(String.join(",", cells)).append('\n');
+            }
+            return out.toString();
+        }), PORTFOLIOS, 1, "S3T4", "linear combination"));
+        cases.add(refused("constant-column", THREE, editData(FACTORS,
+                text -> text.replaceAll("(?m)^(\\d{4}-\\d{2},[^,]*,[^,]*),.*$", "$1,0.01")), FACTORS, 1, "TIDE", "constant"));
+        cases.add(refused("constant-consumption", POWER, editData(CONSUMPTION,
+                text -> text.replaceAll("(?m)^(\\d{4}Q\\d),.*$", "$1,1.004")), CONSUMPTION, 1, "constant"));
+        cases.add(refused("percent-declared-decimal", THREE, mapCells(PORTFOLIOS,
+                cell -> new java.math.BigDecimal(cell).movePointRight(2).toPlainString()), PORTFOLIOS, 2, "percent"));
+        cases.add(refused("decimal-declared-percent", THREE, replaceInModel(THREE, "units = \"decimal\"",
+                "units = \"percent\""), "lumen-", 0, "decimal"));
+        cases.add(refused("gross-declared-net", THREE, mapCells(PORTFOLIOS, ErrorCatalogueTest::plusOne), PORTFOLIOS, 2,
+                "gross"));
+        cases.add(refused("negative-gross-return", POWER, cli -> {
+            mapCells(PORTFOLIOS, ErrorCatalogueTest::plusOne).apply(cli);
+            cli.edit(cli.models.resolve(POWER), "returns_kind = \"net\"", "returns_kind = \"gross\"");
+            cli.edit(cli.data.resolve(PORTFOLIOS), "\n1962-02,1.113774", "\n1962-02,-0.2");
+        }, PORTFOLIOS, 3, "negative"));
+        cases.add(refused("absurd-value", THREE, replaceInData(PORTFOLIOS, "1962-02,0.113774", "1962-02,12.5"), PORTFOLIOS,
+                3, "1000%"));
+        // Paths
+        cases.add(refused("missing-data-file", POWER, replaceInModel(POWER, CONSUMPTION, "no-such-file.csv"), POWER, 10,
+                "does not exist"));
+        cases.add(refused("data-path-is-folder", POWER, replaceInModel(POWER, "../demo-data/" + CONSUMPTION, "../demo-data"),
+                POWER, 10, "folder"));
+        cases.add(refused("missing-column", POWER, replaceInModel(POWER, "\"cons_growth\"", "\"cons_grwth\""), CONSUMPTION,
+                1, "cons_grwth", "did you mean \"cons_growth\""));
+        cases.add(refused("model-file-missing", "no-such-model.toml", cli -> { }, "no-such-model.toml", 0, "does not exist"));
+        cases.add(refused("model-path-is-folder", ".", cli -> { }, "models", 0, "folder"));
+        // Model files
+        cases.add(refused("unknown-key", POWER, replaceInModel(POWER, "kernel = ", "kernal = "), POWER, 19,
+                "did you mean \"kernel\""));
+        cases.add(refused("wrong-type", POWER, replaceInModel(POWER, "lags = 4", "lags = \"four\""), POWER, 20,
+                "whole number"));
+        cases.add(refused("missing-section", POWER, replaceInModel(POWER, "[model]", "[modle]"), POWER, 12, "modle"));
+        cases.add(refused("non-utf8-model-file", POWER, cli -> {
+            Path model = cli.models.resolve(POWER);
+            byte[] text = Files.readAllBytes(model);
+            byte[] bad = new byte[text.length + 3];
+            System.arraycopy(text, 0, bad, 0, text.length);
+            bad[text.length] = '#';
+            bad[text.length + 1] = (byte) 0xC3;
+            bad[text.length + 2] = '\n';
+            Files.write(model, bad);
+        }, POWER, 21, "UTF-8"));
+        cases.add(refused("toml-syntax-error", POWER, replaceInModel(POWER, "family = \"power-utility\"",
+                "family = \"power-utility"), POWER, 13, "TOML"));
+        cases.add(refused("unknown-family", POWER, replaceInModel(POWER, "\"power-utility\"", "\"power-utlity\""), POWER, 13,
+                "did you mean \"power-utility\""));
+        cases.add(refused("lags-and-bandwidth-together", POWER, replaceInModel(POWER, "lags = 4", "lags = 4\nbandwidth = 5.0"),
+                POWER, 20, "both"));
+        cases.add(refused("start-values-unknown-parameter", POWER, replaceInModel(POWER, "gamma = 2.0", "gama = 2.0"), POWER,
+                15, "gama", "did you mean \"gamma\""));
+        cases.add(refused("family-key-of-another-family", THREE, replaceInModel(THREE, "[estimation]",
+                "consumption_column = \"cons_growth\"\n\n[estimation]"), THREE, 0, "not used by the linear-factor family"));
+        // Command line
+        cases.add(withArgs(refused("unknown-method-option", POWER, cli -> { }, "three-step", 0, "one-step"), "--method",
+                "three-step"));
+        cases.add(withArgs(refused("negative-lags-option", POWER, cli -> { }, "--lags", 0, "negative"), "--lags", "-1"));
+        cases.add(withArgs(refused("unknown-kernel-option", POWER, cli -> { }, "gaussian", 0, "quadratic-spectral"),
+                "--kernel", "gaussian"));
+        return cases;
+    }
+
+    @TestFactory
+    Stream<DynamicTest> everyCatalogueEntry() {
+        return catalogue().stream().map(c -> DynamicTest.dynamicTest(c.id(), () -> run(c)));
+    }
+
+    private void run(Case c) throws IOException {
+        Path caseRoot = Files.createDirectories(root.resolve(c.id()));
+        CliHarness cli = new CliHarness(caseRoot);
+        c.setup().apply(cli);
+        Path json = caseRoot.resolve("results.json");
+        List<String> args = new ArrayList<>(List.of("fit", cli.models.resolve(c.model()).normalize().toString(), "--json",
+                json.toString()));
+        args.addAll(c.extraArgs());
+        CliHarness.Result result = cli.run(args.toArray(String[]::new));
+        if (c.exit() == Main.EXIT_OK) {
+            assertThat(result.code()).as("%s is accepted: %s", c.id(), result.err()).isZero();
+            assertThat(json).exists();
+            return;
+        }
+        String err = result.err();
+        assertThat(result.code()).as("%s: %s", c.id(), err).isEqualTo(c.exit());
+        assertThat(err).as(c.id()).startsWith("error: ").contains(c.file()).contains("fix:");
+        assertThat(err).as(c.id()).doesNotContain("Exception").doesNotContain("\tat ");
+        assertThat(err.lines().count()).as("%s: one message of at most two lines: %s", c.id(), err).isLessThanOrEqualTo(2);
+        if (c.line() > 0) {
+            Matcher line = Pattern.compile("line (\\d+)").matcher(err);
+            assertThat(line.find()).as("%s names a line: %s", c.id(), err).isTrue();
+            assertThat(Integer.parseInt(line.group(1))).as("%s: %s", c.id(), err).isEqualTo(c.line());
+        }
+        for (String mention : c.mentions()) {
+            assertThat(err).as(c.id()).contains(mention);
+        }
+        assertThat(result.out()).as(c.id()).isEmpty();
+        assertThat(json).as("%s writes no output", c.id()).doesNotExist();
+        if (System.getProperty("orthogon.printCatalogue") != null) {
+            System.out.println("CATALOGUE " + c.id() + " | " + err.replace(caseRoot.toString(), "").replace("\n", " / "));
+        }
+    }
+
+    @Test
+    void docsListEveryCatalogueEntryAndNoOther() throws IOException {
+        String docs = Files.readString(Paths.get("docs/errors.md"), StandardCharsets.UTF_8);
+        List<String> documented = Pattern.compile("(?m)^### `([a-z0-9-]+)`").matcher(docs).results()
+                .map(m -> m.group(1)).toList();
+        List<String> tested = catalogue().stream().map(Case::id).toList();
+        assertThat(documented).containsExactlyInAnyOrderElementsOf(tested);
+        assertThat(tested).hasSizeGreaterThanOrEqualTo(40);
+    }
+}
