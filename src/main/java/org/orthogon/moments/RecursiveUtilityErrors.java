@@ -22,9 +22,13 @@ import java.util.List;
  * there meets a singular Jacobian. At ψ = 1 (γ ≠ 1) θ is infinite and the SDF depends on continuation
  * values that no return proxy carries; such points are refused with an {@link IllegalArgumentException}.
  *
- * <p>Derivatives, with ln m = θ ln β - (θ/ψ) ln g + (θ - 1) ln R_w and ∂e_i/∂x = m R_i ∂ln m/∂x:
- * ∂ln m/∂β = θ/β; ∂ln m/∂θ = ln β - ln g/ψ + ln R_w; ∂θ/∂γ = -1/(1 - 1/ψ) = -ψ/(ψ - 1);
- * ∂θ/∂ψ = -(1 - γ)/(ψ - 1)²; ∂ln m/∂γ = ∂ln m/∂θ ∂θ/∂γ; ∂ln m/∂ψ = ∂ln m/∂θ ∂θ/∂ψ + θ ln g/ψ².
+ * <p>Computation: with κ = θ/ψ = (1 - γ)/(ψ - 1) and θ = (1 - γ)ψ/(ψ - 1), nothing is divided by ψ,
+ * so an optimizer that wanders to ψ &le; 0 gets finite values (economically meaningless ones, which
+ * the estimate then shows) rather than an exception.
+ *
+ * <p>Derivatives, with ln m = θ ln β - κ ln g + (θ - 1) ln R_w and ∂e_i/∂x = m R_i ∂ln m/∂x:
+ * ∂ln m/∂β = θ/β; ∂θ/∂γ = -ψ/(ψ - 1), ∂κ/∂γ = -1/(ψ - 1); ∂θ/∂ψ = ∂κ/∂ψ = -(1 - γ)/(ψ - 1)²; so
+ * ∂ln m/∂γ = ∂θ/∂γ (ln β + ln R_w) - ∂κ/∂γ ln g and ∂ln m/∂ψ = ∂θ/∂ψ (ln β + ln R_w - ln g).
  */
 public final class RecursiveUtilityErrors implements ObservationErrors {
     public static final List<String> PARAMETERS = List.of("beta", "gamma", "psi");
@@ -79,23 +83,29 @@ public final class RecursiveUtilityErrors implements ObservationErrors {
     }
 
     /**
-     * θ = (1 - γ)/(1 - 1/ψ) (Epstein and Zin 1989).
+     * θ = (1 - γ)/(1 - 1/ψ) (Epstein and Zin 1989), computed as (1 - γ) ψ/(ψ - 1) so that it stays
+     * finite at ψ = 0.
      *
-     * @throws IllegalArgumentException if ψ is not positive, or ψ is within {@link #UNIT_EIS_TOLERANCE}
-     *                                  of 1 with γ ≠ 1 (θ infinite), or both are 1 (θ undefined)
+     * @throws IllegalArgumentException if ψ is within {@link #UNIT_EIS_TOLERANCE} of 1 (θ infinite, or
+     *                                  undefined when γ = 1 too)
      */
     public static double theta(double gamma, double psi) {
-        if (!(psi > 0)) {
-            throw new IllegalArgumentException("psi (the elasticity of intertemporal substitution) must be positive,"
-                    + " got psi = " + psi);
-        }
-        if (Math.abs(psi - 1.0) < UNIT_EIS_TOLERANCE) {
-            throw new IllegalArgumentException("recursive utility with psi = " + psi + " and gamma = " + gamma
+        return (1.0 - gamma) * psi / unitDistance(gamma, psi);
+    }
+
+    /** θ/ψ = (1 - γ)/(ψ - 1), the exponent of consumption growth, with no division by ψ. */
+    private static double growthExponent(double gamma, double psi) {
+        return (1.0 - gamma) / unitDistance(gamma, psi);
+    }
+
+    private static double unitDistance(double gamma, double psi) {
+        if (!(Math.abs(psi - 1.0) >= UNIT_EIS_TOLERANCE)) {
+            throw new ParameterOutOfRangeException("recursive utility with psi = " + psi + " and gamma = " + gamma
                     + " is refused: theta = (1 - gamma)/(1 - 1/psi) is " + (gamma == 1.0 ? "undefined (0/0)" : "infinite")
                     + " at psi = 1, where the SDF depends on continuation values that a wealth-return proxy does not"
                     + " carry; start psi away from 1, or use power utility (psi = 1/gamma)");
         }
-        return (1.0 - gamma) / (1.0 - 1.0 / psi);
+        return psi - 1.0;
     }
 
     @Override
@@ -125,13 +135,12 @@ public final class RecursiveUtilityErrors implements ObservationErrors {
 
     @Override
     public void errors(double[] parameters, double[] out) {
-        double beta = requirePositiveBeta(parameters[0]);
-        double psi = parameters[2];
-        double theta = theta(parameters[1], psi);
-        double logBeta = Math.log(beta);
+        double logBeta = Math.log(requirePositiveBeta(parameters[0]));
+        double theta = theta(parameters[1], parameters[2]);
+        double kappa = growthExponent(parameters[1], parameters[2]);
         int n = assetNames.size();
         for (int t = 0; t < grossReturns.length; t++) {
-            double sdf = Math.exp(logSdf(theta, psi, logBeta, t));
+            double sdf = Math.exp(logSdf(theta, kappa, logBeta, t));
             double[] r = grossReturns[t];
             for (int i = 0; i < n; i++) {
                 out[t * n + i] = sdf * r[i] - 1.0;
@@ -145,16 +154,19 @@ public final class RecursiveUtilityErrors implements ObservationErrors {
         double gamma = parameters[1];
         double psi = parameters[2];
         double theta = theta(gamma, psi);
+        double kappa = growthExponent(gamma, psi);
         double logBeta = Math.log(beta);
         double thetaByGamma = -psi / (psi - 1.0);
-        double thetaByPsi = -(1.0 - gamma) / ((psi - 1.0) * (psi - 1.0));
+        double kappaByGamma = -1.0 / (psi - 1.0);
+        // θ and κ = θ/ψ have the same derivative in ψ, -(1 - γ)/(ψ - 1)².
+        double byPsiOfBoth = -(1.0 - gamma) / ((psi - 1.0) * (psi - 1.0));
         int n = assetNames.size();
         for (int t = 0; t < grossReturns.length; t++) {
-            double sdf = Math.exp(logSdf(theta, psi, logBeta, t));
-            double byTheta = logBeta - logGrowth[t] / psi + logWealthReturn[t];
+            double sdf = Math.exp(logSdf(theta, kappa, logBeta, t));
+            double priceTerms = logBeta + logWealthReturn[t];
             double byBeta = theta / beta;
-            double byGamma = byTheta * thetaByGamma;
-            double byPsi = byTheta * thetaByPsi + theta * logGrowth[t] / (psi * psi);
+            double byGamma = thetaByGamma * priceTerms - kappaByGamma * logGrowth[t];
+            double byPsi = byPsiOfBoth * (priceTerms - logGrowth[t]);
             double[] r = grossReturns[t];
             for (int i = 0; i < n; i++) {
                 double priced = sdf * r[i];
@@ -165,13 +177,13 @@ public final class RecursiveUtilityErrors implements ObservationErrors {
         }
     }
 
-    private double logSdf(double theta, double psi, double logBeta, int t) {
-        return theta * logBeta - theta / psi * logGrowth[t] + (theta - 1.0) * logWealthReturn[t];
+    private double logSdf(double theta, double kappa, double logBeta, int t) {
+        return theta * logBeta - kappa * logGrowth[t] + (theta - 1.0) * logWealthReturn[t];
     }
 
     private static double requirePositiveBeta(double beta) {
         if (!(beta > 0)) {
-            throw new IllegalArgumentException("beta must be positive for beta^theta to be defined, got beta = " + beta);
+            throw new ParameterOutOfRangeException("beta must be positive for beta^theta to be defined, got beta = " + beta);
         }
         return beta;
     }

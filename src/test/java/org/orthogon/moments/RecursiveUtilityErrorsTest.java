@@ -63,12 +63,15 @@ class RecursiveUtilityErrorsTest {
         RecursiveUtilityErrors family = new RecursiveUtilityErrors(data.gross, data.growth, data.wealth, ASSETS, "R_w");
         double[] out = new double[5 * 4];
         assertThatThrownBy(() -> family.errors(new double[] {0.98, 10.0, 1.0}, out))
-                .isInstanceOf(IllegalArgumentException.class)
+                .isInstanceOf(ParameterOutOfRangeException.class)
                 .hasMessageContaining("psi = 1.0").hasMessageContaining("gamma = 10.0").hasMessageContaining("infinite");
         assertThatThrownBy(() -> RecursiveUtilityErrors.theta(1.0, 1.0)).hasMessageContaining("0/0");
-        assertThatThrownBy(() -> RecursiveUtilityErrors.theta(2.0, -0.5)).hasMessageContaining("psi = -0.5");
+        // ψ = 0 is finite in the (1 - γ)ψ/(ψ - 1) form: θ = 0.
+        assertThat(RecursiveUtilityErrors.theta(2.0, 0.0)).isEqualTo(0.0);
         assertThatThrownBy(() -> family.errors(new double[] {-0.5, 10.0, 0.5}, out))
-                .hasMessageContaining("beta = -0.5");
+                .isInstanceOf(ParameterOutOfRangeException.class).hasMessageContaining("beta = -0.5");
+        assertThatThrownBy(() -> family.errorDerivatives(new double[] {0.98, 2.0, 1.0 + 1e-9}, new double[3][20]))
+                .isInstanceOf(ParameterOutOfRangeException.class);
     }
 
     @Test
