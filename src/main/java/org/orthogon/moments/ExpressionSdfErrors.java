@@ -123,10 +123,17 @@ public final class ExpressionSdfErrors implements ObservationErrors {
             parsed = new ExpressionBuilder(formula).implicitMultiplication(false).variables(names).build();
         } catch (UnknownFunctionOrVariableException e) {
             int position = e.getPosition() + 1;
-            throw new ExpressionException("unknown name \"" + e.getToken() + "\" at character " + position
-                    + " of the SDF expression \"" + formula + "\": it is neither a parameter (" + String.join(", ",
-                    this.parameterNames) + ") nor a data column (" + String.join(", ", dataColumns.keySet()) + ")",
-                    e.getToken(), position);
+            String token = e.getToken();
+            int after = e.getPosition() + token.length();
+            boolean called = formula.substring(Math.min(after, formula.length())).stripLeading().startsWith("(");
+            String what = called
+                    ? "it is not one of the functions (exp, log, log10, sqrt, abs, sin, cos and others); the"
+                    + " natural logarithm is log"
+                    : "it is neither a parameter (" + String.join(", ", this.parameterNames) + ") nor a data column ("
+                    + String.join(", ", dataColumns.keySet()) + ")";
+            throw new ExpressionException("unknown " + (called ? "function" : "name") + " \"" + token
+                    + "\" at character " + position + " of the SDF expression \"" + formula + "\": " + what,
+                    token, position);
         } catch (IllegalArgumentException e) {
             throw new ExpressionException("the SDF expression \"" + formula + "\" cannot be read: " + e.getMessage(),
                     null, 0);

@@ -78,6 +78,21 @@ class ExpressionSdfErrorsTest {
     }
 
     @Test
+    void unknownFunctionsAreToldApartFromUnknownNames() {
+        FamilyFixtures data = new FamilyFixtures(13L, 5, 4, 1);
+        ExpressionSdfErrors.ExpressionException e = catchThrowableOfType(ExpressionSdfErrors.ExpressionException.class,
+                () -> powerFormula(data, "beta * exp(-gamma * ln(cons_growth))"));
+        assertThat(e.name()).isEqualTo("ln");
+        assertThat(e.position()).isEqualTo(21);
+        assertThat(e.getMessage()).contains("unknown function \"ln\" at character 21").contains("logarithm is log");
+        // With log it is the power-utility SDF again (Hansen and Singleton 1982).
+        ExpressionSdfErrors fixed = powerFormula(data, "beta * exp(-gamma * log(cons_growth))");
+        double[] theta = {0.99, 4.0};
+        assertThat(FamilyFixtures.maxDifference(FamilyFixtures.errors(fixed, theta),
+                FamilyFixtures.errors(new PowerUtilityErrors(data.gross, data.growth, ASSETS), theta))).isLessThan(1e-12);
+    }
+
+    @Test
     void nothingButArithmeticCanRun() {
         FamilyFixtures data = new FamilyFixtures(11L, 5, 4, 1);
         ExpressionSdfErrors.ExpressionException e = catchThrowableOfType(ExpressionSdfErrors.ExpressionException.class,
