@@ -39,7 +39,8 @@ public record CrossSectionFit(List<String> assets, double[] realised, double[] i
         DMatrixRMaj g = model.meanMoments(theta);
         DMatrixRMaj meanPayoff = MomentAlgebra.columnMeans(model.payoffs());
         double meanSdf = model.meanDiscountFactor(theta);
-        int k = g.getNumElements();
+        // Auxiliary moments (the factor means of the demeaned SDF) price no asset and are left out.
+        int k = model.pricingMomentCount();
         double[] realised = new double[k];
         double[] implied = new double[k];
         double[] alpha = new double[k];
@@ -53,7 +54,7 @@ public record CrossSectionFit(List<String> assets, double[] realised, double[] i
             squares += alpha[i] * alpha[i];
         }
         double r2 = 1.0 - crossSectionalVariance(alpha) / crossSectionalVariance(realised);
-        return new CrossSectionFit(new ArrayList<>(model.momentNames()), realised, implied, alpha, r2, absolute / k,
+        return new CrossSectionFit(new ArrayList<>(model.momentNames().subList(0, k)), realised, implied, alpha, r2, absolute / k,
                 Math.sqrt(squares / k));
     }
 

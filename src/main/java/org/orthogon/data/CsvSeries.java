@@ -53,7 +53,7 @@ public final class CsvSeries {
             .get();
 
     /** Plain decimal notation only: Java's parser would also take "1d", "0x1p3" or "Infinity". */
-    private static final Pattern NUMBER = Pattern.compile("[+-]?(\\d+(\\.\\d*)?|\\.\\d+)([eE][+-]?\\d+)?");
+    static final Pattern NUMBER = Pattern.compile("[+-]?(\\d+(\\.\\d*)?|\\.\\d+)([eE][+-]?\\d+)?");
 
     private static final Set<String> MISSING_MARKERS = Set.of("na", "n/a", "nan", "null", "none", ".", "-",
             "#n/a", "?");
@@ -186,13 +186,13 @@ public final class CsvSeries {
         throw new IllegalStateException("no round-trip decimal for " + value);
     }
 
-    private record RawRow(int line, List<String> cells) {
+    record RawRow(int line, List<String> cells) {
         boolean blank() {
             return cells.stream().allMatch(String::isEmpty);
         }
     }
 
-    private static String readText(Path file) {
+    static String readText(Path file) {
         if (!Files.exists(file)) {
             throw InputException.in(file).problem(
                     "the file does not exist (looked for " + file.toAbsolutePath().normalize() + ")",
@@ -254,7 +254,7 @@ public final class CsvSeries {
         return out.toString();
     }
 
-    private static List<RawRow> parse(Path file, String text) {
+    static List<RawRow> parse(Path file, String text) {
         List<RawRow> rows = new ArrayList<>();
         long consumed = 0;
         try (CSVParser parser = CSVParser.parse(text, READ_FORMAT)) {
@@ -308,28 +308,36 @@ public final class CsvSeries {
                     "the first line looks like data (a date and numbers), not a header",
                     "add a header line above it: the word date, then one name per column, e.g. date,P01,P02");
         }
+        return checkedNames(file, header.line, cells.subList(1, cells.size()), 2);
+    }
+
+    /**
+     * The series names of a header, refusing an empty or repeated name at its column;
+     * {@code firstColumn} is the 1-based file column of the first name.
+     */
+    static List<String> checkedNames(Path file, int line, List<String> cells, int firstColumn) {
         List<String> names = new ArrayList<>();
-        Map<String, Integer> firstColumn = new HashMap<>();
-        for (int c = 1; c < cells.size(); c++) {
+        Map<String, Integer> seen = new HashMap<>();
+        for (int c = 0; c < cells.size(); c++) {
             String name = cells.get(c);
-            int column = c + 1;
+            int column = c + firstColumn;
             if (name.isEmpty()) {
-                throw InputException.in(file).line(header.line).column(column, null).problem(
+                throw InputException.in(file).line(line).column(column, null).problem(
                         "column " + column + " has no name in the header",
                         "give every column a name, or delete the empty column (often a trailing comma)");
             }
-            Integer earlier = firstColumn.putIfAbsent(name, column);
+            Integer earlier = seen.putIfAbsent(name, column);
             if (earlier != null) {
-                throw InputException.in(file).line(header.line).column(column, name).problem(
+                throw InputException.in(file).line(line).column(column, name).problem(
                         "the column name \"" + name + "\" appears twice, in columns " + earlier + " and " + column,
                         "rename one of the two columns so every name is unique");
             }
             names.add(name);
         }
-        return names;
+        return List.copyOf(names);
     }
 
-    private static Period.Parsed parseDate(Path file, RawRow row, String dateName, Period.Parsed first,
+    static Period.Parsed parseDate(Path file, RawRow row, String dateName, Period.Parsed first,
                                            int firstLine) {
         String cell = row.cells.get(0);
         Period.Parsed parsed = Period.parseNotation(cell);
@@ -369,7 +377,7 @@ public final class CsvSeries {
         };
     }
 
-    private static double parseNumber(Path file, int line, int column, String name, String cell) {
+    static double parseNumber(Path file, int line, int column, String name, String cell) {
         String lower = cell.toLowerCase(Locale.ROOT);
         if (cell.isEmpty() || MISSING_MARKERS.contains(lower)) {
             throw InputException.in(file).line(line).column(column, name).problem(
@@ -406,7 +414,7 @@ public final class CsvSeries {
     }
 
     /** Fixes the frequency and checks that the dates form one increasing index without gaps. */
-    private static List<Period> index(Path file, List<Period.Parsed> parsed, int[] lines, String dateName) {
+    static List<Period> index(Path file, List<Period.Parsed> parsed, int[] lines, String dateName) {
         Frequency frequency = notationFrequency(parsed.get(0).notation());
         if (frequency == null) {
             frequency = dayFrequency(file, parsed, lines, dateName);

@@ -393,7 +393,7 @@ public final class ReturnTransforms {
         return new CompoundedSeries(result, dropped, notes);
     }
 
-    private static void requireGross(SeriesTable table) {
+    static void requireGross(SeriesTable table) {
         double[][] columns = table.columns();
         for (int j = 0; j < columns.length; j++) {
             String name = table.columnNames().get(j);

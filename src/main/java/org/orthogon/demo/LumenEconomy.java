@@ -169,4 +169,43 @@ public record LumenEconomy(
         }
         return numerator / denominator;
     }
+
+    /**
+     * True b of the demeaned SDF m = 1 - b'(F - μ_F) on excess returns: b = Σ_F^{-1} μ_F = λ, because
+     * E[R^e] = Cov(R^e, F') b is E[R^e] = B μ_F = B Σ_F b (Cochrane 2005, "Asset Pricing", section 13.4;
+     * cited from memory). The jointly estimated factor means have truth μ_F.
+     */
+    public double[] demeanedSdfCoefficients() {
+        return factorRiskPrices();
+    }
+
+    /**
+     * True (a, b) of m = a - b'F on gross returns with the risk-free asset: m must be proportional to
+     * 1 - b_e'F with b_e = {@link #linearSdfCoefficients()} to price excess returns, and E[m] R_f = 1
+     * fixes the scale, a = 1 / (R_f (1 - b_e'μ_F)), b = a b_e (algebra from Cochrane 2005, section 6.3).
+     * Element 0 is a, then b in factor order.
+     */
+    public double[] grossSdfParameters() {
+        double[] be = linearSdfCoefficients();
+        double meanSdf = 1.0;
+        for (int k = 0; k < be.length; k++) {
+            meanSdf -= be[k] * factorMeans[k];
+        }
+        double a = 1.0 / (monthlyRiskfreeGross() * meanSdf);
+        double[] out = new double[be.length + 1];
+        out[0] = a;
+        for (int k = 0; k < be.length; k++) {
+            out[k + 1] = a * be[k];
+        }
+        return out;
+    }
+
+    /**
+     * True (β, γ, ψ) of recursive utility on quarterly data with the market as wealth proxy: the
+     * economy's SDF is power utility, which recursive utility nests at ψ = 1/γ (θ = 1, Epstein and Zin
+     * 1989), so β and γ are those of power utility and ψ = 1/γ.
+     */
+    public double[] recursiveUtilityParameters() {
+        return new double[] {quarterlyBeta, gamma, 1.0 / gamma};
+    }
 }

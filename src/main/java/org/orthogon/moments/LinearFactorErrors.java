@@ -1,6 +1,5 @@
 package org.orthogon.moments;
 
-import java.util.ArrayList;
 import java.util.List;
 
 /**
@@ -29,25 +28,9 @@ public final class LinearFactorErrors implements ObservationErrors {
                     + factors.length);
         }
         this.assetNames = List.copyOf(assetNames);
-        List<String> names = new ArrayList<>();
-        for (String factor : factorNames) {
-            names.add("b_" + factor);
-        }
-        this.parameterNames = List.copyOf(names);
-        this.excessReturns = copyRows(excessReturns, assetNames.size(), "return");
-        this.factors = copyRows(factors, factorNames.size(), "factor");
-    }
-
-    private static double[][] copyRows(double[][] rows, int width, String what) {
-        double[][] copy = new double[rows.length][];
-        for (int t = 0; t < rows.length; t++) {
-            if (rows[t].length != width) {
-                throw new IllegalArgumentException(what + " row " + t + " has " + rows[t].length
-                        + " values, expected " + width);
-            }
-            copy[t] = rows[t].clone();
-        }
-        return copy;
+        this.parameterNames = MomentAlgebra.prefixed("b_", factorNames);
+        this.excessReturns = MomentAlgebra.copyRows(excessReturns, assetNames.size(), "return");
+        this.factors = MomentAlgebra.copyRows(factors, factorNames.size(), "factor");
     }
 
     @Override
@@ -78,10 +61,7 @@ public final class LinearFactorErrors implements ObservationErrors {
 
     @Override
     public void payoffs(double[] out) {
-        int n = assetNames.size();
-        for (int t = 0; t < excessReturns.length; t++) {
-            System.arraycopy(excessReturns[t], 0, out, t * n, n);
-        }
+        MomentAlgebra.flatten(excessReturns, out);
     }
 
     @Override

@@ -24,4 +24,45 @@ public final class MomentAlgebra {
         }
         return means;
     }
+
+    /**
+     * Private copies of T rows of {@code width} values each, refusing a ragged row; {@code what} names
+     * the rows in the message ("return", "factor").
+     */
+    static double[][] copyRows(double[][] rows, int width, String what) {
+        double[][] copy = new double[rows.length][];
+        for (int t = 0; t < rows.length; t++) {
+            if (rows[t].length != width) {
+                throw new IllegalArgumentException(what + " row " + t + " has " + rows[t].length
+                        + " values, expected " + width);
+            }
+            copy[t] = rows[t].clone();
+        }
+        return copy;
+    }
+
+    /** Refuses two inputs that should cover the same T observations but do not. */
+    static void requireRows(int expected, int actual, String first, String second) {
+        if (expected != actual) {
+            throw new IllegalArgumentException(first + " have " + expected + " rows but " + second + " have " + actual);
+        }
+    }
+
+    /** The names prefixed, e.g. "b_" + factor. */
+    static java.util.List<String> prefixed(String prefix, java.util.List<String> names) {
+        java.util.List<String> out = new java.util.ArrayList<>(names.size());
+        for (String name : names) {
+            out.add(prefix + name);
+        }
+        return java.util.List.copyOf(out);
+    }
+
+    /** Writes T rows of equal width into {@code out} row-major, the layout of {@link ObservationErrors}. */
+    static void flatten(double[][] rows, double[] out) {
+        int offset = 0;
+        for (double[] row : rows) {
+            System.arraycopy(row, 0, out, offset, row.length);
+            offset += row.length;
+        }
+    }
 }

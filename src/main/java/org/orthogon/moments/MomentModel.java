@@ -52,6 +52,11 @@ public interface MomentModel {
         return MomentAlgebra.columnMeans(contributions(theta));
     }
 
+    /** How many of the moments, counted from the first, price test assets (the rest are auxiliary). */
+    default int pricingMomentCount() {
+        return momentCount();
+    }
+
     /** Number of moments K. */
     default int momentCount() {
         return momentNames().size();

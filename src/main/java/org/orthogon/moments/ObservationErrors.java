@@ -36,6 +36,15 @@ public interface ObservationErrors {
     /** Fills {@code out} (length T) with the stochastic discount factor m_t(θ). */
     void discountFactor(double[] theta, double[] out);
 
+    /**
+     * How many of the {@link #assetNames()} are pricing errors of test assets; they come first. Families
+     * that stack auxiliary moments after them (the factor means of the demeaned linear SDF) report fewer
+     * than all, so cross-sectional fit statistics use only the assets.
+     */
+    default int pricedAssets() {
+        return assetNames().size();
+    }
+
     /** True when e_t(θ) is affine in θ. */
     boolean isLinear();
 }

@@ -70,10 +70,7 @@ public final class PowerUtilityErrors implements ObservationErrors {
 
     @Override
     public void payoffs(double[] out) {
-        int n = assetNames.size();
-        for (int t = 0; t < grossReturns.length; t++) {
-            System.arraycopy(grossReturns[t], 0, out, t * n, n);
-        }
+        MomentAlgebra.flatten(grossReturns, out);
     }
 
     @Override

@@ -41,6 +41,11 @@ final class RowWindow implements ObservationErrors {
     }
 
     @Override
+    public int pricedAssets() {
+        return base.pricedAssets();
+    }
+
+    @Override
     public boolean isLinear() {
         return base.isLinear();
     }

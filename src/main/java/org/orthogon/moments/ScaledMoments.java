@@ -126,6 +126,11 @@ public final class ScaledMoments implements MomentModel {
         return sum / sdf.length;
     }
 
+    @Override
+    public int pricingMomentCount() {
+        return errors.pricedAssets() * instrumentCount;
+    }
+
     /** True when the moments are the family's errors themselves, not scaled by instruments. */
     public boolean isUnscaled() {
         return instruments == null;

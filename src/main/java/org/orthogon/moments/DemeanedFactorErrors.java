@@ -1,0 +1,160 @@
+package org.orthogon.moments;
+
+import java.util.ArrayList;
+import java.util.List;
+
+/**
+ * A linear SDF in demeaned factors with the factor means estimated jointly:
+ * <pre>
+ *   m_t = 1 - b'(F_t - μ)
+ *   e_{t,i} = R^e_{t,i} (1 - b'(F_t - μ))   for each asset i = 1..N
+ *   e_{t,N+k} = F_{t,k} - μ_k              for each factor k = 1..K
+ * </pre>
+ * Stacking the mean equations makes the standard errors of b account for μ being estimated
+ * (Cochrane 2005, "Asset Pricing", revised edition, section 13.4; cited from memory). With demeaned
+ * factors E[m] = 1 and the pricing equation reads E[R^e] = Cov(R^e, F') b, so b are prices of
+ * covariance risk that do not depend on the factor means (same reference).
+ *
+ * <p>The errors are not affine in θ = (b, μ): b'μ is a product of parameters, so {@link #isLinear()}
+ * is false. Derivatives: ∂e_i/∂b_k = -R^e_i (F_k - μ_k); ∂e_i/∂μ_k = R^e_i b_k; ∂e_{N+k}/∂μ_j = -δ_{kj};
+ * ∂e_{N+k}/∂b = 0.
+ *
+ * <p>Parameters are b_&lt;factor&gt; then mu_&lt;factor&gt;. The asset moments come first, then one
+ * moment per factor named mean_&lt;factor&gt;. Those mean moments price no payoff; {@link #payoffs}
+ * reports F_k for them (e = 1·F_k - μ_k), so a Hansen-Jagannathan distance should be taken over the
+ * first {@link #pricingMoments()} moments only.
+ */
+public final class DemeanedFactorErrors implements ObservationErrors {
+    private final double[][] excessReturns; // [t][i]
+    private final double[][] factors; // [t][k]
+    private final List<String> assetNames;
+    private final List<String> parameterNames;
+    private final int assets;
+    private final int factorCount;
+
+    /**
+     * @param excessReturns T x N excess returns
+     * @param factors       T x K factors on the same dates
+     * @param assetNames    N names
+     * @param factorNames   K names
+     */
+    public DemeanedFactorErrors(double[][] excessReturns, double[][] factors, List<String> assetNames,
+            List<String> factorNames) {
+        MomentAlgebra.requireRows(excessReturns.length, factors.length, "returns", "factors");
+        this.assets = assetNames.size();
+        this.factorCount = factorNames.size();
+        this.excessReturns = MomentAlgebra.copyRows(excessReturns, assets, "return");
+        this.factors = MomentAlgebra.copyRows(factors, factorCount, "factor");
+        List<String> moments = new ArrayList<>(assetNames);
+        moments.addAll(MomentAlgebra.prefixed("mean_", factorNames));
+        this.assetNames = List.copyOf(moments);
+        List<String> parameters = new ArrayList<>(MomentAlgebra.prefixed("b_", factorNames));
+        parameters.addAll(MomentAlgebra.prefixed("mu_", factorNames));
+        this.parameterNames = List.copyOf(parameters);
+    }
+
+    /** The number N of moments that price assets; the K factor-mean moments follow them. */
+    public int pricingMoments() {
+        return assets;
+    }
+
+    /** Sample factor means, the exactly identified estimate of μ and a natural start value. */
+    public double[] sampleFactorMeans() {
+        double[] mean = new double[factorCount];
+        for (double[] f : factors) {
+            for (int k = 0; k < factorCount; k++) {
+                mean[k] += f[k] / factors.length;
+            }
+        }
+        return mean;
+    }
+
+    @Override
+    public List<String> parameterNames() {
+        return parameterNames;
+    }
+
+    @Override
+    public List<String> assetNames() {
+        return assetNames;
+    }
+
+    @Override
+    public int observations() {
+        return excessReturns.length;
+    }
+
+    @Override
+    public void payoffs(double[] out) {
+        int width = assets + factorCount;
+        for (int t = 0; t < excessReturns.length; t++) {
+            System.arraycopy(excessReturns[t], 0, out, t * width, assets);
+            System.arraycopy(factors[t], 0, out, t * width + assets, factorCount);
+        }
+    }
+
+    @Override
+    public void discountFactor(double[] theta, double[] out) {
+        for (int t = 0; t < factors.length; t++) {
+            double sdf = 1.0;
+            for (int k = 0; k < factorCount; k++) {
+                sdf -= theta[k] * (factors[t][k] - theta[factorCount + k]);
+            }
+            out[t] = sdf;
+        }
+    }
+
+    @Override
+    public int pricedAssets() {
+        return assets;
+    }
+
+    @Override
+    public boolean isLinear() {
+        return false;
+    }
+
+    @Override
+    public void errors(double[] theta, double[] out) {
+        int width = assets + factorCount;
+        for (int t = 0; t < excessReturns.length; t++) {
+            double[] f = factors[t];
+            double sdf = 1.0;
+            for (int k = 0; k < factorCount; k++) {
+                sdf -= theta[k] * (f[k] - theta[factorCount + k]);
+            }
+            double[] r = excessReturns[t];
+            int row = t * width;
+            for (int i = 0; i < assets; i++) {
+                out[row + i] = r[i] * sdf;
+            }
+            for (int k = 0; k < factorCount; k++) {
+                out[row + assets + k] = f[k] - theta[factorCount + k];
+            }
+        }
+    }
+
+    @Override
+    public void errorDerivatives(double[] theta, double[][] out) {
+        int width = assets + factorCount;
+        for (int t = 0; t < excessReturns.length; t++) {
+            double[] f = factors[t];
+            double[] r = excessReturns[t];
+            int row = t * width;
+            for (int k = 0; k < factorCount; k++) {
+                double demeaned = f[k] - theta[factorCount + k];
+                double b = theta[k];
+                double[] byB = out[k];
+                double[] byMu = out[factorCount + k];
+                for (int i = 0; i < assets; i++) {
+                    byB[row + i] = -r[i] * demeaned;
+                    byMu[row + i] = r[i] * b;
+                }
+                for (int j = 0; j < factorCount; j++) {
+                    byB[row + assets + j] = 0.0;
+                    byMu[row + assets + j] = j == k ? -1.0 : 0.0;
+                }
+            }
+        }
+    }
+}

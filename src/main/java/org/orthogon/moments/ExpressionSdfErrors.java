@@ -1,0 +1,249 @@
+package org.orthogon.moments;
+
+import java.util.LinkedHashMap;
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+import net.objecthunter.exp4j.Expression;
+import net.objecthunter.exp4j.ExpressionBuilder;
+import net.objecthunter.exp4j.ValidationResult;
+import net.objecthunter.exp4j.tokenizer.UnknownFunctionOrVariableException;
+
+/**
+ * Pricing errors of an SDF the user writes as a formula over data columns and parameters, e.g.
+ * {@code "beta * cons_growth^(-gamma)"}: m_t(θ) is the formula evaluated with the data of observation
+ * t, and e_{t,i} = m_t(θ) x_{t,i} - p with p = 1 for gross returns and p = 0 for excess returns
+ * (the basic pricing equation E[m x] = p, Cochrane 2005, "Asset Pricing", revised edition, chapter 1).
+ *
+ * <p>The formula is parsed by exp4j into a token list that only evaluates arithmetic (+ - * / ^ %,
+ * unary minus, parentheses) and exp4j's fixed set of mathematical functions (exp, log, sqrt, abs,
+ * trigonometric and others) on doubles; nothing in it can call Java, a script engine or the file
+ * system. Implicit multiplication ("2beta") is switched off so that a forgotten operator is an error,
+ * not a silent product.
+ *
+ * <p>Derivatives are numerical: {@link CentralDifferences} with steps ε^{1/3} max(|θ_p|, 1).
+ */
+public final class ExpressionSdfErrors implements ObservationErrors {
+
+    /** What the priced payoffs are, which fixes their price p in e = m x - p. */
+    public enum PayoffKind {
+        /** Gross returns, price 1. */
+        GROSS(1.0),
+        /** Excess (zero-cost) returns, price 0. */
+        EXCESS(0.0);
+
+        private final double price;
+
+        PayoffKind(double price) {
+            this.price = price;
+        }
+
+        /** The price p of one unit of this kind of payoff. */
+        public double price() {
+            return price;
+        }
+    }
+
+    /** A formula the family refuses, with the offending name and its place when there is one. */
+    public static final class ExpressionException extends IllegalArgumentException {
+        private static final long serialVersionUID = 1L;
+        private final String name;
+        private final int position;
+
+        ExpressionException(String message, String name, int position) {
+            super(message);
+            this.name = name;
+            this.position = position;
+        }
+
+        /** The unknown or misplaced name, or null when the problem is not about a name. */
+        public String name() {
+            return name;
+        }
+
+        /** The 1-based character position of {@link #name()} in the formula, or 0 if unknown. */
+        public int position() {
+            return position;
+        }
+    }
+
+    /** Names exp4j reserves for constants; a variable of that name would be shadowed. */
+    private static final Set<String> RESERVED = Set.of("e", "pi", "π", "φ");
+
+    private final String formula;
+    private final Expression template;
+    private final List<String> parameterNames;
+    private final List<String> dataNames;
+    private final double[][] data; // [column][t], only the columns the formula uses
+    private final double[][] payoffs; // [t][i]
+    private final List<String> assetNames;
+    private final double price;
+
+    /**
+     * @param formula        the SDF, e.g. "beta * cons_growth^(-gamma)"
+     * @param parameterNames the parameters θ, in order; each must occur in the formula
+     * @param dataColumns    data series by name, each of length T; columns the formula does not use are
+     *                       ignored
+     * @param payoffs        T x N payoffs x_t (gross or excess returns)
+     * @param assetNames     N names
+     * @param kind           gross (p = 1) or excess (p = 0)
+     * @throws ExpressionException for a formula that does not parse, names something that is neither a
+     *                             data column nor a parameter (with the 1-based position), uses a name
+     *                             both as a column and as a parameter, or leaves a parameter unused
+     */
+    public ExpressionSdfErrors(String formula, List<String> parameterNames, Map<String, double[]> dataColumns,
+            double[][] payoffs, List<String> assetNames, PayoffKind kind) {
+        this.formula = formula;
+        this.parameterNames = List.copyOf(parameterNames);
+        this.assetNames = List.copyOf(assetNames);
+        this.payoffs = MomentAlgebra.copyRows(payoffs, assetNames.size(), "payoff");
+        this.price = kind.price();
+        if (formula == null || formula.isBlank()) {
+            throw new ExpressionException("the SDF expression is empty; write it over data columns and parameters,"
+                    + " e.g. \"beta * cons_growth^(-gamma)\"", null, 0);
+        }
+        Set<String> names = new LinkedHashSet<>();
+        for (String p : this.parameterNames) {
+            if (dataColumns.containsKey(p)) {
+                throw new ExpressionException("\"" + p + "\" is both a parameter and a data column; rename the"
+                        + " parameter so the SDF expression \"" + formula + "\" is unambiguous", p, 0);
+            }
+            names.add(p);
+        }
+        names.addAll(dataColumns.keySet());
+        for (String name : names) {
+            if (RESERVED.contains(name)) {
+                throw new ExpressionException("\"" + name + "\" is a mathematical constant in SDF expressions and"
+                        + " cannot name a parameter or a data column; rename it", name, 0);
+            }
+        }
+        Expression parsed;
+        try {
+            parsed = new ExpressionBuilder(formula).implicitMultiplication(false).variables(names).build();
+        } catch (UnknownFunctionOrVariableException e) {
+            int position = e.getPosition() + 1;
+            String token = e.getToken();
+            int after = e.getPosition() + token.length();
+            boolean called = formula.substring(Math.min(after, formula.length())).stripLeading().startsWith("(");
+            String what = called
+                    ? "it is not one of the functions (exp, log, log10, sqrt, abs, sin, cos and others); the"
+                    + " natural logarithm is log"
+                    : "it is neither a parameter (" + String.join(", ", this.parameterNames) + ") nor a data column ("
+                    + String.join(", ", dataColumns.keySet()) + ")";
+            throw new ExpressionException("unknown " + (called ? "function" : "name") + " \"" + token
+                    + "\" at character " + position + " of the SDF expression \"" + formula + "\": " + what,
+                    token, position);
+        } catch (IllegalArgumentException e) {
+            throw new ExpressionException("the SDF expression \"" + formula + "\" cannot be read: " + e.getMessage(),
+                    null, 0);
+        }
+        ValidationResult validation = parsed.validate(false);
+        if (!validation.isValid()) {
+            throw new ExpressionException("the SDF expression \"" + formula + "\" cannot be evaluated: "
+                    + String.join("; ", validation.getErrors()), null, 0);
+        }
+        Set<String> used = parsed.getVariableNames();
+        for (String p : this.parameterNames) {
+            if (!used.contains(p)) {
+                throw new ExpressionException("the parameter \"" + p + "\" does not occur in the SDF expression \""
+                        + formula + "\", so the data cannot identify it; remove it or use it in the expression", p, 0);
+            }
+        }
+        Map<String, double[]> kept = new LinkedHashMap<>();
+        for (Map.Entry<String, double[]> column : dataColumns.entrySet()) {
+            if (used.contains(column.getKey())) {
+                MomentAlgebra.requireRows(payoffs.length, column.getValue().length, "payoffs",
+                        "data column " + column.getKey() + " values");
+                kept.put(column.getKey(), column.getValue().clone());
+            }
+        }
+        this.template = parsed;
+        this.dataNames = List.copyOf(kept.keySet());
+        this.data = kept.values().toArray(new double[0][]);
+    }
+
+    /** The formula as given. */
+    public String formula() {
+        return formula;
+    }
+
+    /** The data columns the formula uses, in the order they were given. */
+    public List<String> dataColumnsUsed() {
+        return dataNames;
+    }
+
+    /**
+     * The SDF m_t(θ) at every observation.
+     *
+     * @throws IllegalArgumentException if θ has the wrong length
+     */
+    public double[] sdf(double[] theta) {
+        if (theta.length != parameterNames.size()) {
+            throw new IllegalArgumentException("θ has " + theta.length + " values, the expression has parameters "
+                    + parameterNames);
+        }
+        // A private copy per call: exp4j expressions hold their variable values.
+        Expression expression = new Expression(template);
+        for (int p = 0; p < theta.length; p++) {
+            expression.setVariable(parameterNames.get(p), theta[p]);
+        }
+        double[] m = new double[payoffs.length];
+        for (int t = 0; t < m.length; t++) {
+            for (int j = 0; j < data.length; j++) {
+                expression.setVariable(dataNames.get(j), data[j][t]);
+            }
+            m[t] = expression.evaluate();
+        }
+        return m;
+    }
+
+    @Override
+    public List<String> parameterNames() {
+        return parameterNames;
+    }
+
+    @Override
+    public List<String> assetNames() {
+        return assetNames;
+    }
+
+    @Override
+    public int observations() {
+        return payoffs.length;
+    }
+
+    @Override
+    public void errors(double[] theta, double[] out) {
+        double[] m = sdf(theta);
+        int n = assetNames.size();
+        for (int t = 0; t < m.length; t++) {
+            double[] x = payoffs[t];
+            for (int i = 0; i < n; i++) {
+                out[t * n + i] = m[t] * x[i] - price;
+            }
+        }
+    }
+
+    @Override
+    public void errorDerivatives(double[] theta, double[][] out) {
+        CentralDifferences.derivatives(this::errors, theta, payoffs.length * assetNames.size(), out);
+    }
+
+    @Override
+    public void discountFactor(double[] theta, double[] out) {
+        double[] sdf = sdf(theta);
+        System.arraycopy(sdf, 0, out, 0, sdf.length);
+    }
+
+    @Override
+    public void payoffs(double[] out) {
+        MomentAlgebra.flatten(payoffs, out);
+    }
+
+    /** Always false: a formula is treated as non-linear even when it happens to be affine. */
+    @Override
+    public boolean isLinear() {
+        return false;
+    }
+}
