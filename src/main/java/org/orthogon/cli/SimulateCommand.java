@@ -41,7 +41,9 @@ final class SimulateCommand implements Callable<Integer> {
         LumenEconomy economy = LumenEconomy.standard();
         var sample = LumenSimulator.simulate(economy, LumenSimulator.FIRST_YEAR, count,
                 seed == null ? LumenSimulator.DEMO_SEED : seed);
-        List<Path> files = DemoData.write(economy, sample, out == null ? Paths.get("demo-data") : out);
+        Path folder = out == null ? Paths.get("demo-data") : out;
+        List<Path> files = new java.util.ArrayList<>(DemoData.write(economy, sample, folder));
+        files.addAll(DemoData.writeExtensions(economy, sample, seed == null ? LumenSimulator.DEMO_SEED : seed, folder));
         if (!quiet) {
             for (Path file : files) {
                 commandSpec.commandLine().getOut().println("wrote " + file);

@@ -29,11 +29,16 @@ public final class DemoData {
     public static final String DEFLATOR_SERIES = "lumen-deflator-series.csv";
     public static final String PORTFOLIO_SECTIONS = "lumen-portfolios-sections.txt";
     /**
+     * Instruments known at the end of each quarter: that quarter's consumption growth and wealth return.
+     * The draws are independent over time, so any such instrument is valid: E[e_{t+1} z_t] = 0.
+     */
+    public static final String INSTRUMENTS = "lumen-instruments-quarterly.csv";
+    /**
      * Every file {@link #writeExtensions} produces: the series the recursive-utility family and the
      * importers need, added after the first four files were published, which stay unchanged.
      */
     public static final List<String> EXTENSION_FILES = List.of(WEALTH, MACRO_LEVELS, DEFLATOR_SERIES,
-            PORTFOLIO_SECTIONS);
+            PORTFOLIO_SECTIONS, INSTRUMENTS);
     private static final double ROUNDING = 1e6;
 
     private DemoData() {
@@ -85,6 +90,8 @@ public final class DemoData {
         series.append(levelQuarters.get(levelQuarters.size() - 1).plus(1).label()).append(",.\n");
         written.add(writeText(folder, DEFLATOR_SERIES, series.toString()));
         written.add(writeText(folder, PORTFOLIO_SECTIONS, sections(economy, sample)));
+        written.add(writeTable(folder, INSTRUMENTS, quarters, List.of("z_cons", "z_wealth"),
+                new double[][] {sample.consumptionGrowth(), macro.realWealth()}));
         return written;
     }
 

@@ -17,6 +17,7 @@ import org.apache.commons.math3.util.Pair;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.CommonOps_DDRM;
 import org.orthogon.moments.MomentModel;
+import org.orthogon.moments.ParameterOutOfRangeException;
 
 /**
  * Minimises the GMM objective Q(θ) = T g_T(θ)' W g_T(θ) for a fixed weight W.
@@ -132,7 +133,9 @@ public final class WeightedMinimizer {
                     boolean stationary = isStationary(model, weight, theta);
                     best = new Minimum(theta, q, stationary, optimum.getIterations(), starts.size(), List.of());
                 }
-            } catch (TooManyEvaluationsException | TooManyIterationsException | ArithmeticException e) {
+            } catch (TooManyEvaluationsException | TooManyIterationsException | ArithmeticException
+                    | ParameterOutOfRangeException e) {
+                // A start that wanders where the SDF is undefined (beta <= 0 in recursive utility) counts as failed.
                 failed++;
             }
         }

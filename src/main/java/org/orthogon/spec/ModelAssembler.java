@@ -19,7 +19,12 @@ import org.orthogon.data.ReturnKind;
 import org.orthogon.data.ReturnTransforms;
 import org.orthogon.data.SeriesTable;
 import org.orthogon.data.Units;
+import org.orthogon.moments.DemeanedFactorErrors;
+import org.orthogon.moments.ExpressionSdfErrors;
+import org.orthogon.moments.GrossFactorErrors;
 import org.orthogon.moments.LinearFactorErrors;
+import org.orthogon.moments.RecursiveUtilityErrors;
+import org.orthogon.moments.ScaledFactors;
 import org.orthogon.moments.ObservationErrors;
 import org.orthogon.moments.PowerUtilityErrors;
 import org.orthogon.moments.ScaledMoments;
@@ -47,99 +52,297 @@ public final class ModelAssembler {
     /** Reads and aligns the data of {@code spec} and builds its moment conditions. */
     public static PreparedRun prepare(RunSpec spec) {
         ModelAssembler assembler = new ModelAssembler(spec);
+        assembler.rejectKeysOfOtherFamilies();
         return switch (spec.model().family()) {
             case POWER_UTILITY -> assembler.preparePowerUtility();
+            case RECURSIVE_UTILITY -> assembler.prepareRecursiveUtility();
             case LINEAR_FACTOR -> assembler.prepareLinearFactor();
+            case EXPRESSION -> assembler.prepareExpression();
         };
     }
 
-    private PreparedRun preparePowerUtility() {
-        RunSpec.DataSpec data = spec.data();
-        String consumptionColumn = spec.model().consumptionColumn().orElseThrow(() -> missingKey("model",
-                "consumption_column", "the power-utility family needs consumption growth",
-                "add consumption_column = \"cons_growth\" under [model] (gross growth C_t/C_{t-1})"));
-        Path macroFile = data.macro().orElseThrow(() -> missingKey("data", "macro",
-                "the power-utility family needs a macro file with consumption growth",
-                "add macro = \"path/to/consumption.csv\" under [data]"));
-        rejectUnused("factor_columns", spec.model().factorColumns());
+    /** The [model] keys each family reads; any other [model] key present is a mistake worth naming. */
+    private static final Map<RunSpec.Family, List<String>> MODEL_KEYS_OF = Map.of(
+            RunSpec.Family.POWER_UTILITY, List.of("family", "consumption_column", "instrument_columns", "start_values"),
+            RunSpec.Family.RECURSIVE_UTILITY, List.of("family", "consumption_column", "wealth_column",
+                    "instrument_columns", "start_values"),
+            RunSpec.Family.LINEAR_FACTOR, List.of("family", "factor_columns", "form", "factor_instruments",
+                    "instrument_columns", "start_values"),
+            RunSpec.Family.EXPRESSION, List.of("family", "sdf", "parameters", "payoff", "instrument_columns",
+                    "start_values"));
 
-        ReturnsWithRate returns = readReturnsWithRate();
-        SeriesTable gross = ReturnTransforms.toGross(returns.returns(), ReturnKind.fromId(data.returnsKind()),
-                returns.riskfreeGross());
-        SeriesTable macro = select("consumption_column", readTable("macro", macroFile),
-                List.of(consumptionColumn));
-        ColumnChecks.requireVarying(macro, "consumption");
-        if (gross.frequency().isFinerThan(macro.frequency())) {
-            CompoundedSeries compounded = ReturnTransforms.compound(gross, macro.frequency());
-            notes.add(gross.frequency().id() + " returns compounded to " + macro.frequency().id()
-                    + " to match the consumption series");
-            notes.addAll(compounded.notes());
-            gross = compounded.table();
-        } else if (macro.frequency().isFinerThan(gross.frequency())) {
-            throw InputException.in(macroFile).problem("consumption is " + macro.frequency().id()
-                    + " but the returns are " + gross.frequency().id(),
-                    "give consumption growth at the frequency of the returns (or a finer return series)");
-        }
-        Aligned aligned = align(gross, List.of(macro));
-        double[] growth = aligned.otherColumns(0)[0];
-        for (int t = 0; t < growth.length; t++) {
-            if (!(growth[t] > 0)) {
-                throw InputException.in(macroFile).line(aligned.fileLine(1, t)).column(consumptionColumn)
-                        .problem("consumption growth must be gross growth C_t/C_{t-1} > 0, found " + growth[t],
-                                "give gross growth (e.g. 1.004), not net growth or log growth");
+    private void rejectKeysOfOtherFamilies() {
+        RunSpec.Family family = spec.model().family();
+        List<String> allowed = MODEL_KEYS_OF.get(family);
+        for (String key : spec.keyLines().keySet()) {
+            if (key.startsWith("model.") && !allowed.contains(key.substring(6))) {
+                String name = key.substring(6);
+                throw InputException.in(spec.modelFile()).line(spec.lineOf("model", name))
+                        .problem(name + " is not used by the " + family.id() + " family",
+                                "remove it, or choose the family that uses it (" + familiesUsing(name) + ")");
             }
         }
+        if (spec.data().wealth().isPresent() && family != RunSpec.Family.RECURSIVE_UTILITY) {
+            throw InputException.in(spec.modelFile()).line(spec.lineOf("data", "wealth"))
+                    .problem("wealth is not used by the " + family.id() + " family",
+                            "remove it, or use family = \"recursive-utility\"");
+        }
+    }
+
+    private static String familiesUsing(String key) {
+        return MODEL_KEYS_OF.entrySet().stream().filter(e -> e.getValue().contains(key))
+                .map(e -> e.getKey().id()).sorted().collect(java.util.stream.Collectors.joining(", "));
+    }
+
+    private PreparedRun preparePowerUtility() {
+        String consumptionColumn = consumptionColumn();
+        SeriesTable macro = readConsumption(consumptionColumn);
+        SeriesTable gross = grossAtFrequencyOf(macro);
+        Aligned aligned = align(gross, List.of(macro));
+        double[] growth = positiveGrowth(aligned, consumptionColumn);
         ObservationErrors errors = new PowerUtilityErrors(aligned.assetRows(), growth, gross.columnNames());
         double[] start = startValues(PowerUtilityErrors.PARAMETERS, Map.of("beta", 0.99, "gamma", 2.0));
         return finish(errors, aligned, start);
     }
 
+    private PreparedRun prepareRecursiveUtility() {
+        String consumptionColumn = consumptionColumn();
+        String wealthColumn = spec.model().wealthColumn().orElseThrow(() -> missingKey("model", "wealth_column",
+                "the recursive-utility family needs a wealth-return proxy",
+                "add wealth_column = \"wealth_return\" under [model], naming a gross return column of the wealth file"));
+        Path wealthFile = spec.data().wealth().orElseThrow(() -> missingKey("data", "wealth",
+                "the recursive-utility family needs a file with the wealth-return proxy",
+                "add wealth = \"path/to/wealth.csv\" under [data] (gross returns at the consumption frequency)"));
+        SeriesTable macro = readConsumption(consumptionColumn);
+        SeriesTable gross = grossAtFrequencyOf(macro);
+        Units units = Units.fromId(spec.data().units());
+        SeriesTable wealth = select("wealth_column", readTable("wealth", wealthFile), List.of(wealthColumn));
+        ReturnTransforms.checkPlausible(wealth, ReturnKind.GROSS, units);
+        wealth = ReturnTransforms.toDecimal(wealth, units);
+        Aligned aligned = align(gross, List.of(macro, wealth));
+        double[] growth = positiveGrowth(aligned, consumptionColumn);
+        ObservationErrors errors = new RecursiveUtilityErrors(aligned.assetRows(), growth,
+                aligned.otherColumns(1)[0], gross.columnNames(), wealthColumn);
+        double[] start = startValues(RecursiveUtilityErrors.PARAMETERS, Map.of("beta", 0.99, "gamma", 2.0, "psi", 0.5));
+        return finish(errors, aligned, start);
+    }
+
     private PreparedRun prepareLinearFactor() {
-        RunSpec.DataSpec data = spec.data();
         List<String> factorColumns = spec.model().factorColumns();
         if (factorColumns.isEmpty()) {
             throw missingKey("model", "factor_columns", "the linear-factor family needs factors",
                     "add factor_columns = [\"MKT\"] under [model], naming columns of the factors file");
         }
-        Path factorFile = data.factors().orElseThrow(() -> missingKey("data", "factors",
-                "the linear-factor family needs a factors file", "add factors = \"path/to/factors.csv\" under [data]"));
-        if (spec.model().consumptionColumn().isPresent()) {
-            throw InputException.in(spec.modelFile()).line(spec.lineOf("model", "consumption_column"))
-                    .problem("consumption_column is not used by the linear-factor family",
-                            "remove it, or use family = \"power-utility\"");
-        }
-        ReturnKind kind = ReturnKind.fromId(data.returnsKind());
-        SeriesTable excess;
-        if (kind == ReturnKind.EXCESS) {
-            excess = readReturns();
-        } else {
+        SeriesTable factors = readFactors(factorColumns);
+        String form = spec.model().form();
+        SeriesTable assets;
+        double[] riskfreeGross = null;
+        if (form.equals("gross")) {
             ReturnsWithRate returns = readReturnsWithRate();
             if (returns.riskfreeGross() == null) {
-                throw missingKey("data", "riskfree", "the linear-factor family prices excess returns, and "
-                        + data.returnsKind() + " returns need a risk-free rate to become excess returns",
-                        "add riskfree = \"path/to/riskfree.csv\" under [data], or give excess returns with "
-                                + "returns_kind = \"excess\"");
+                throw missingKey("data", "riskfree", "the gross form m = a - b'F prices the risk-free asset too",
+                        "add riskfree = \"path/to/riskfree.csv\" under [data]");
             }
-            excess = ReturnTransforms.excess(ReturnTransforms.toGross(returns.returns(), kind, null),
+            assets = ReturnTransforms.toGross(returns.returns(), ReturnKind.fromId(spec.data().returnsKind()),
                     returns.riskfreeGross());
+            riskfreeGross = returns.riskfreeGross();
+            assets = withColumn(assets, "__riskfree", riskfreeGross);
+        } else {
+            assets = excessReturns("the linear-factor family (form \"" + form + "\") prices excess returns");
         }
-        Units units = Units.fromId(data.units());
+        Aligned aligned = align(assets, List.of(factors));
+        double[][] factorRows = transpose(aligned.otherColumns(0));
+        List<String> factorNames = factorColumns;
+        if (!spec.model().factorInstruments().isEmpty()) {
+            ScaledFactors scaled = ScaledFactors.expand(factorRows, factorColumns,
+                    aligned.laggedInstruments(spec.model().factorInstruments()), spec.model().factorInstruments());
+            factorRows = scaled.values();
+            factorNames = scaled.names();
+        }
+        ObservationErrors errors;
+        double[] defaults;
+        if (form.equals("gross")) {
+            double[][] rows = aligned.assetRows();
+            int n = rows[0].length - 1;
+            double[][] risky = new double[rows.length][n];
+            double[] rate = new double[rows.length];
+            for (int t = 0; t < rows.length; t++) {
+                System.arraycopy(rows[t], 0, risky[t], 0, n);
+                rate[t] = rows[t][n];
+            }
+            String rateName = spec.data().riskfreeColumn().orElse("riskfree");
+            errors = new GrossFactorErrors(risky, rate, factorRows, assets.columnNames().subList(0, n), rateName,
+                    factorNames);
+            defaults = new double[errors.parameterNames().size()];
+            defaults[0] = 1.0;
+        } else if (form.equals("demeaned")) {
+            DemeanedFactorErrors demeaned = new DemeanedFactorErrors(aligned.assetRows(), factorRows,
+                    assets.columnNames(), factorNames);
+            errors = demeaned;
+            defaults = new double[errors.parameterNames().size()];
+            double[] means = demeaned.sampleFactorMeans();
+            System.arraycopy(means, 0, defaults, factorNames.size(), means.length);
+        } else {
+            errors = new LinearFactorErrors(aligned.assetRows(), factorRows, assets.columnNames(), factorNames);
+            defaults = new double[errors.parameterNames().size()];
+        }
+        Map<String, Double> defaultMap = new LinkedHashMap<>();
+        for (int i = 0; i < defaults.length; i++) {
+            defaultMap.put(errors.parameterNames().get(i), defaults[i]);
+        }
+        return finish(errors, aligned, startValues(errors.parameterNames(), defaultMap));
+    }
+
+    private PreparedRun prepareExpression() {
+        String formula = spec.model().sdf().orElseThrow(() -> missingKey("model", "sdf",
+                "the expression family needs an SDF formula",
+                "add sdf = \"beta * cons_growth^(-gamma)\" under [model], over data columns and parameters"));
+        List<String> parameters = spec.model().parameters();
+        if (parameters.isEmpty()) {
+            throw missingKey("model", "parameters", "the expression family needs the list of its parameters",
+                    "add parameters = [\"beta\", \"gamma\"] under [model]");
+        }
+        boolean grossPayoff = spec.model().payoff().equals("gross");
+        List<SeriesTable> dataTables = new ArrayList<>();
+        if (spec.data().macro().isPresent()) {
+            dataTables.add(readTable("macro", spec.data().macro().get()));
+        }
+        if (spec.data().factors().isPresent()) {
+            SeriesTable factors = readTable("factors", spec.data().factors().get());
+            Units units = Units.fromId(spec.data().units());
+            ReturnTransforms.checkPlausible(factors, ReturnKind.EXCESS, units);
+            dataTables.add(ReturnTransforms.toDecimal(factors, units));
+        }
+        if (dataTables.isEmpty()) {
+            throw missingKey("data", "macro", "the expression family needs data columns for its SDF",
+                    "add macro = \"...csv\" and/or factors = \"...csv\" under [data]");
+        }
+        SeriesTable assets = grossPayoff ? grossAtFrequencyOf(dataTables.get(0))
+                : excessReturns("payoff = \"excess\" prices excess returns");
+        Aligned aligned = align(assets, dataTables);
+        Map<String, double[]> columns = new LinkedHashMap<>();
+        for (int i = 0; i < dataTables.size(); i++) {
+            double[][] values = aligned.otherColumns(i);
+            List<String> names = dataTables.get(i).columnNames();
+            for (int j = 0; j < names.size(); j++) {
+                if (columns.put(names.get(j), values[j]) != null) {
+                    throw InputException.in(dataTables.get(i).source()).line(1).column(names.get(j))
+                            .problem("the column \"" + names.get(j) + "\" appears in both the macro and the factors "
+                                    + "file, so the SDF formula would be ambiguous", "rename one of the two columns");
+                }
+            }
+        }
+        ObservationErrors errors;
+        try {
+            errors = new ExpressionSdfErrors(formula, parameters, columns, aligned.assetRows(), assets.columnNames(),
+                    grossPayoff ? ExpressionSdfErrors.PayoffKind.GROSS : ExpressionSdfErrors.PayoffKind.EXCESS);
+        } catch (ExpressionSdfErrors.ExpressionException e) {
+            List<String> known = new ArrayList<>(parameters);
+            known.addAll(columns.keySet());
+            String hint = e.name() == null ? "" : Suggestions.didYouMean(e.name(), known);
+            throw InputException.in(spec.modelFile()).line(spec.lineOf("model", "sdf"))
+                    .problem("the sdf formula cannot be used: " + e.getMessage(),
+                            "use only the parameters " + parameters + " and the data columns " + columns.keySet()
+                                    + hint);
+        }
+        return finish(errors, aligned, startValues(parameters, Map.of()));
+    }
+
+    private String consumptionColumn() {
+        return spec.model().consumptionColumn().orElseThrow(() -> missingKey("model", "consumption_column",
+                "the " + spec.model().family().id() + " family needs consumption growth",
+                "add consumption_column = \"cons_growth\" under [model] (gross growth C_t/C_{t-1})"));
+    }
+
+    private SeriesTable readConsumption(String consumptionColumn) {
+        Path macroFile = spec.data().macro().orElseThrow(() -> missingKey("data", "macro",
+                "the " + spec.model().family().id() + " family needs a macro file with consumption growth",
+                "add macro = \"path/to/consumption.csv\" under [data]"));
+        SeriesTable macro = select("consumption_column", readTable("macro", macroFile), List.of(consumptionColumn));
+        ColumnChecks.requireVarying(macro, "consumption");
+        return macro;
+    }
+
+    /** Consumption growth on the moment rows, refusing a non-positive value at its file line. */
+    private double[] positiveGrowth(Aligned aligned, String consumptionColumn) {
+        double[] growth = aligned.otherColumns(0)[0];
+        for (int t = 0; t < growth.length; t++) {
+            if (!(growth[t] > 0)) {
+                throw InputException.in(aligned.sample().tables().get(1).source()).line(aligned.fileLine(1, t))
+                        .column(consumptionColumn)
+                        .problem("consumption growth must be gross growth C_t/C_{t-1} > 0, found " + growth[t],
+                                "give gross growth (e.g. 1.004), not net growth or log growth");
+            }
+        }
+        return growth;
+    }
+
+    /**
+     * The test assets' gross returns at the frequency of {@code other} (the macro series): compounded
+     * when the returns are finer, refused when they are coarser.
+     */
+    private SeriesTable grossAtFrequencyOf(SeriesTable other) {
+        ReturnsWithRate returns = readReturnsWithRate();
+        SeriesTable gross = ReturnTransforms.toGross(returns.returns(), ReturnKind.fromId(spec.data().returnsKind()),
+                returns.riskfreeGross());
+        if (gross.frequency().isFinerThan(other.frequency())) {
+            CompoundedSeries compounded = ReturnTransforms.compound(gross, other.frequency());
+            notes.add(gross.frequency().id() + " returns compounded to " + other.frequency().id()
+                    + " to match " + other.source().getFileName());
+            notes.addAll(compounded.notes());
+            return compounded.table();
+        }
+        if (other.frequency().isFinerThan(gross.frequency())) {
+            throw InputException.in(other.source()).problem(other.source().getFileName() + " is "
+                    + other.frequency().id() + " but the returns are " + gross.frequency().id(),
+                    "give the macro series at the frequency of the returns (or a finer return series)");
+        }
+        return gross;
+    }
+
+    /** The test assets as excess returns: as given, or net/gross minus the risk-free rate. */
+    private SeriesTable excessReturns(String why) {
+        RunSpec.DataSpec data = spec.data();
+        ReturnKind kind = ReturnKind.fromId(data.returnsKind());
+        if (kind == ReturnKind.EXCESS) {
+            return readReturns();
+        }
+        ReturnsWithRate returns = readReturnsWithRate();
+        if (returns.riskfreeGross() == null) {
+            throw missingKey("data", "riskfree", why + ", and " + data.returnsKind()
+                    + " returns need a risk-free rate to become excess returns",
+                    "add riskfree = \"path/to/riskfree.csv\" under [data], or give excess returns with "
+                            + "returns_kind = \"excess\"");
+        }
+        return ReturnTransforms.excess(ReturnTransforms.toGross(returns.returns(), kind, null), returns.riskfreeGross());
+    }
+
+    private SeriesTable readFactors(List<String> factorColumns) {
+        Path factorFile = spec.data().factors().orElseThrow(() -> missingKey("data", "factors",
+                "the linear-factor family needs a factors file", "add factors = \"path/to/factors.csv\" under [data]"));
+        Units units = Units.fromId(spec.data().units());
         SeriesTable factors = select("factor_columns", readTable("factors", factorFile), factorColumns);
         ReturnTransforms.checkPlausible(factors, ReturnKind.EXCESS, units);
         ColumnChecks.requireVarying(factors, "factor");
         ColumnChecks.requireIndependent(factors, "factor");
-        factors = ReturnTransforms.toDecimal(factors, units);
-        Aligned aligned = align(excess, List.of(factors));
-        double[][] factorRows = transpose(aligned.otherColumns(0));
-        ObservationErrors errors = new LinearFactorErrors(aligned.assetRows(), factorRows, excess.columnNames(),
-                factorColumns);
-        double[] start = startValues(errors.parameterNames(), Map.of());
-        return finish(errors, aligned, start);
+        return ReturnTransforms.toDecimal(factors, units);
+    }
+
+    /** {@code table} with one more column (used to carry the risk-free rate through alignment). */
+    private static SeriesTable withColumn(SeriesTable table, String name, double[] values) {
+        List<String> names = new ArrayList<>(table.columnNames());
+        names.add(name);
+        double[][] columns = java.util.Arrays.copyOf(table.columns(), names.size());
+        columns[names.size() - 1] = values.clone();
+        return new SeriesTable(table.source(), table.frequency(), table.dates(), names, columns, table.lineNumbers());
     }
 
     private SeriesTable readReturns() {
         RunSpec.DataSpec data = spec.data();
         SeriesTable returns = readTable("returns", data.returns());
+        if (!data.assets().isEmpty()) {
+            returns = select("data", "assets", returns, data.assets());
+        }
         ReturnKind kind = ReturnKind.fromId(data.returnsKind());
         Units units = Units.fromId(data.units());
         ReturnTransforms.checkPlausible(returns, kind, units);
@@ -200,11 +403,18 @@ public final class ModelAssembler {
      * so with instruments the row before the first moment must exist in every file.
      */
     private Aligned align(SeriesTable assets, List<SeriesTable> others) {
-        List<String> instrumentColumns = spec.model().instrumentColumns();
+        // Instruments scale the moments (instrument_columns) or the factors (factor_instruments); both
+        // come from the one instruments file and are lagged by one period.
+        List<String> instrumentColumns = new ArrayList<>(spec.model().instrumentColumns());
+        for (String name : spec.model().factorInstruments()) {
+            if (!instrumentColumns.contains(name)) {
+                instrumentColumns.add(name);
+            }
+        }
         Optional<SeriesTable> instruments = readInstruments(instrumentColumns);
-        if (!instrumentColumns.isEmpty() && spec.data().instruments().isEmpty()
-                && !instrumentColumns.equals(List.of(CONSTANT_INSTRUMENT))) {
-            throw missingKey("data", "instruments", "instrument_columns names columns but no instruments file is given",
+        if (instrumentColumns.stream().anyMatch(c -> !c.equals(CONSTANT_INSTRUMENT)) && spec.data().instruments().isEmpty()) {
+            String key = spec.model().instrumentColumns().isEmpty() ? "factor_instruments" : "instrument_columns";
+            throw missingKey("data", "instruments", key + " names columns but no instruments file is given",
                     "add instruments = \"path/to/instruments.csv\" under [data], or use only \"const\"");
         }
         List<SeriesTable> tables = new ArrayList<>();
@@ -254,7 +464,8 @@ public final class ModelAssembler {
         }
         if (columns.isEmpty()) {
             throw InputException.in(spec.modelFile()).line(spec.lineOf("data", "instruments"))
-                    .problem("an instruments file is given but instrument_columns is empty",
+                    .problem("an instruments file is given but neither instrument_columns nor factor_instruments "
+                            + "names a column of it",
                             "add instrument_columns = [\"const\", ...] under [model], or remove instruments");
         }
         SeriesTable table = readTable("instruments", spec.data().instruments().get());
@@ -267,7 +478,8 @@ public final class ModelAssembler {
         if (fromFile.isEmpty()) {
             return Optional.of(table.select(List.of(table.columnNames().get(0))));
         }
-        SeriesTable selected = select("instrument_columns", table, fromFile);
+        SeriesTable selected = select(spec.model().instrumentColumns().isEmpty() ? "factor_instruments"
+                : "instrument_columns", table, fromFile);
         if (columns.contains(CONSTANT_INSTRUMENT)) {
             // A constant instrument beside "const" would duplicate it and make S singular.
             ColumnChecks.requireVarying(selected, "instrument");
@@ -279,7 +491,7 @@ public final class ModelAssembler {
     private PreparedRun finish(ObservationErrors errors, Aligned aligned, double[] start) {
         List<String> instrumentColumns = spec.model().instrumentColumns();
         ScaledMoments moments = instrumentColumns.isEmpty() ? ScaledMoments.unscaled(errors)
-                : ScaledMoments.scaled(errors, aligned.laggedInstruments(), instrumentColumns);
+                : ScaledMoments.scaled(errors, aligned.laggedInstruments(instrumentColumns), instrumentColumns);
         int observations = aligned.observations();
         if (observations <= moments.momentCount()) {
             int line = spec.lineOf("data", spec.data().start().isPresent() ? "start" : "returns");
@@ -393,13 +605,13 @@ public final class ModelAssembler {
             return sample.tables().get(table).lineOf(first + t);
         }
 
-        /** z_{t-1} for each moment row t, [t][instrument], in the order of instrument_columns. */
-        double[][] laggedInstruments() {
+        /** z_{t-1} for each moment row t, [t][instrument], in the order of {@code names}. */
+        double[][] laggedInstruments(List<String> names) {
             SeriesTable file = sample.tables().size() > 1 && hasInstrumentFile()
                     ? sample.tables().get(sample.tables().size() - 1) : null;
-            double[][] rows = new double[observations()][instrumentColumns.size()];
-            for (int j = 0; j < instrumentColumns.size(); j++) {
-                String name = instrumentColumns.get(j);
+            double[][] rows = new double[observations()][names.size()];
+            for (int j = 0; j < names.size(); j++) {
+                String name = names.get(j);
                 double[] column = name.equals(CONSTANT_INSTRUMENT) ? null : file.column(name);
                 for (int t = 0; t < rows.length; t++) {
                     rows[t][j] = column == null ? 1.0 : column[first + t - lag];

@@ -38,10 +38,13 @@ import tools.jackson.dataformat.toml.TomlMapper;
  */
 public final class ModelFile {
     private static final Set<String> TOP_LEVEL = Set.of("title", "data", "model", "estimation", "stability");
-    private static final List<String> DATA_KEYS = List.of("returns", "returns_kind", "units", "riskfree",
-            "riskfree_column", "factors", "macro", "instruments", "start", "end");
+    private static final List<String> DATA_KEYS = List.of("returns", "assets", "returns_kind", "units", "riskfree",
+            "riskfree_column", "factors", "macro", "instruments", "wealth", "start", "end");
     private static final List<String> MODEL_KEYS = List.of("family", "consumption_column", "factor_columns",
-            "instrument_columns", "start_values");
+            "instrument_columns", "start_values", "form", "wealth_column", "sdf", "parameters", "payoff",
+            "factor_instruments");
+    private static final List<String> FORMS = List.of("excess", "demeaned", "gross");
+    private static final List<String> PAYOFFS = List.of("gross", "excess");
     private static final List<String> ESTIMATION_KEYS = List.of("method", "initial_weight", "kernel", "bandwidth",
             "lags", "prewhiten", "centered");
     private static final List<String> STABILITY_KEYS = List.of("splits", "trimming", "window", "step", "expanding");
@@ -167,6 +170,7 @@ public final class ModelFile {
         }
         return new DataSpec(
                 path("data", data, "returns"),
+                stringList("data", data, "assets"),
                 choice("data", data, "returns_kind", RETURN_KINDS, "gross"),
                 choice("data", data, "units", UNITS, "decimal"),
                 optionalPath(data, "riskfree"),
@@ -174,6 +178,7 @@ public final class ModelFile {
                 optionalPath(data, "factors"),
                 optionalPath(data, "macro"),
                 optionalPath(data, "instruments"),
+                optionalPath(data, "wealth"),
                 optionalString("data", data, "start"),
                 optionalString("data", data, "end"));
     }
@@ -181,7 +186,7 @@ public final class ModelFile {
     private ModelSpec parseModel(JsonNode model) {
         if (!model.has("family")) {
             throw error("model", null, "[model] has no family",
-                    "add family = \"power-utility\" or family = \"linear-factor\"");
+                    "add family = \"power-utility\", \"recursive-utility\", \"linear-factor\" or \"expression\"");
         }
         String familyId = string("model", model, "family");
         Family family = Family.fromId(familyId).orElseThrow(() -> error("model", "family",
@@ -208,7 +213,13 @@ public final class ModelFile {
                 optionalString("model", model, "consumption_column"),
                 stringList("model", model, "factor_columns"),
                 stringList("model", model, "instrument_columns"),
-                startValues);
+                startValues,
+                choice("model", model, "form", FORMS, "excess"),
+                optionalString("model", model, "wealth_column"),
+                optionalString("model", model, "sdf"),
+                stringList("model", model, "parameters"),
+                choice("model", model, "payoff", PAYOFFS, "gross"),
+                stringList("model", model, "factor_instruments"));
     }
 
     private EstimationSpec parseEstimation(JsonNode estimation) {

@@ -29,6 +29,7 @@ public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec mod
     /** Paths and conventions of the input files ([data] section). */
     public record DataSpec(
             Path returns,
+            List<String> assets,
             String returnsKind,
             String units,
             Optional<Path> riskfree,
@@ -36,21 +37,40 @@ public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec mod
             Optional<Path> factors,
             Optional<Path> macro,
             Optional<Path> instruments,
+            Optional<Path> wealth,
             Optional<String> start,
             Optional<String> end) {
     }
 
-    /** The SDF family and its columns ([model] section). */
+    /**
+     * The SDF family and its columns ([model] section).
+     *
+     * @param form              linear-factor only: "excess" (m = 1 - b'F on excess returns), "demeaned"
+     *                          (m = 1 - b'(F - mu), mu estimated) or "gross" (m = a - b'F on gross returns)
+     * @param wealthColumn      recursive-utility: the wealth-return proxy column of the [data] wealth file
+     * @param sdf               expression: the SDF formula over data columns and parameters
+     * @param parameters        expression: the parameter names, in order
+     * @param payoff            expression: "gross" (E[m R] = 1) or "excess" (E[m R^e] = 0)
+     * @param factorInstruments linear-factor: instruments that scale the factors, F_t ⊗ z_{t-1}
+     */
     public record ModelSpec(
             Family family,
             Optional<String> consumptionColumn,
             List<String> factorColumns,
             List<String> instrumentColumns,
-            Map<String, Double> startValues) {
+            Map<String, Double> startValues,
+            String form,
+            Optional<String> wealthColumn,
+            Optional<String> sdf,
+            List<String> parameters,
+            String payoff,
+            List<String> factorInstruments) {
         public ModelSpec {
             factorColumns = List.copyOf(factorColumns);
             instrumentColumns = List.copyOf(instrumentColumns);
             startValues = Map.copyOf(startValues);
+            parameters = List.copyOf(parameters);
+            factorInstruments = List.copyOf(factorInstruments);
         }
     }
 
@@ -99,7 +119,9 @@ public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec mod
     /** The model families this version knows (DESIGN.md section 4). */
     public enum Family {
         POWER_UTILITY("power-utility"),
-        LINEAR_FACTOR("linear-factor");
+        RECURSIVE_UTILITY("recursive-utility"),
+        LINEAR_FACTOR("linear-factor"),
+        EXPRESSION("expression");
 
         private final String id;
 

@@ -4,6 +4,7 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import java.io.IOException;
 import java.nio.file.Path;
+import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -20,6 +21,19 @@ class CheckCommandTest {
                 .contains("N = 12 test assets, K = 12 moments, P = 2 parameters, K - P = 10")
                 .contains("lumen-consumption-quarterly.csv").contains("compounded to quarterly")
                 .doesNotContain("Hansen J");
+    }
+
+    @Test
+    void checkPassesOnEveryShippedModelFile() throws IOException {
+        CliHarness cli = new CliHarness(root);
+        try (var files = java.nio.file.Files.list(cli.models)) {
+            List<Path> models = files.filter(p -> p.toString().endsWith(".toml")).sorted().toList();
+            assertThat(models).hasSizeGreaterThanOrEqualTo(9);
+            for (Path model : models) {
+                CliHarness.Result result = cli.run("check", model.toString());
+                assertThat(result.code()).as("%s: %s", model.getFileName(), result.err()).isZero();
+            }
+        }
     }
 
     @Test
