@@ -80,8 +80,8 @@ public final class Alignment {
         Period sampleStart;
         if (start == null) {
             sampleStart = overlapStart;
-            notes.add("sample starts " + sampleStart + ", the first date of " + latestStart.source()
-                    + (tables.size() > 1 ? " (the latest-starting file)" : ""));
+            notes.add("the files share dates from " + sampleStart + ", the first date of "
+                    + latestStart.source().getFileName() + (tables.size() > 1 ? " (the latest-starting file)" : ""));
         } else {
             // A start inside every file is never before the overlap, so the request stands as given.
             sampleStart = start;
@@ -90,8 +90,8 @@ public final class Alignment {
         Period sampleEnd;
         if (end == null) {
             sampleEnd = overlapEnd;
-            notes.add("sample ends " + sampleEnd + ", the last date of " + earliestEnd.source()
-                    + (tables.size() > 1 ? " (the earliest-ending file)" : ""));
+            notes.add("the files share dates to " + sampleEnd + ", the last date of "
+                    + earliestEnd.source().getFileName() + (tables.size() > 1 ? " (the earliest-ending file)" : ""));
         } else {
             sampleEnd = end;
             notes.add("sample ends " + sampleEnd + ", as requested");

@@ -442,6 +442,9 @@ public final class ModelAssembler {
                             + " is after its end " + dates.get(Math.max(last, 0)).label(),
                             "correct start and end under [data]");
         }
+        if (lag > 0 && spec.data().start().isEmpty()) {
+            notes.add("instruments are lagged one period, so the moments start at " + dates.get(first).label());
+        }
         return new Aligned(sample, first, last, lag, instrumentColumns);
     }
 

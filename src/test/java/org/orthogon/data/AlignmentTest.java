@@ -52,8 +52,8 @@ class AlignmentTest {
         assertThat(sample.tables().get(2).column("MKT")).startsWith(300.0).endsWith(309.0);
         assertThat(sample.tables().get(1).lineNumbers()[0]).isEqualTo(11);
         assertThat(sample.notes()).containsExactly(
-                "sample starts 1970-03, the first date of " + factorsFile + " (the latest-starting file)",
-                "sample ends 1970-12, the last date of " + returnsFile + " (the earliest-ending file)");
+                "the files share dates from 1970-03, the first date of " + factorsFile.getFileName() + " (the latest-starting file)",
+                "the files share dates to 1970-12, the last date of " + returnsFile.getFileName() + " (the earliest-ending file)");
     }
 
     @Test
