@@ -9,6 +9,9 @@ import org.orthogon.gmm.GmmEstimator;
 import org.orthogon.gmm.GmmFit;
 import org.orthogon.gmm.GmmOptions;
 import org.orthogon.report.ConsoleReport;
+import org.orthogon.report.FitReport;
+import org.orthogon.report.Manifest;
+import org.orthogon.report.OutputFolder;
 import org.orthogon.report.JsonResults;
 import org.orthogon.report.SensitivityReport;
 import org.orthogon.spec.ModelAssembler;
@@ -36,6 +39,14 @@ final class FitCommand implements Callable<Integer> {
     @Option(names = "--json", paramLabel = "FILE", description = "also write the results as JSON to FILE")
     Path json;
 
+    @Option(names = "--out", paramLabel = "DIR", arity = "0..1", fallbackValue = "",
+            description = "also write the output folder (results.json, tables, charts, report.html, manifest.json) "
+                    + "to DIR; --out alone writes out/<model-file-name>/")
+    Path out;
+
+    @Option(names = "--overwrite", description = "let --out replace a folder that already holds a report")
+    boolean overwrite;
+
     @Option(names = "--sensitivity", description = "also refit under every kernel and bandwidth choice of the "
             + "sensitivity grid (HC; Bartlett, Parzen, Tukey-Hanning lags 0-12; QS b = 1-13; Andrews and Newey-West "
             + "rules; with and without prewhitening) and flag verdicts that differ at 5%%")
@@ -52,6 +63,11 @@ final class FitCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
+        java.time.Instant started = java.time.Instant.now();
+        if (out != null) {
+            // Refuse an unusable folder before the estimation, not after it.
+            OutputFolder.check(OutputFiles.folderOrDefault(out, modelFile), overwrite);
+        }
         RunSpec spec = overrides.apply(ModelFile.read(modelFile));
         PreparedRun prepared = ModelAssembler.prepare(spec);
         GmmFit fit = GmmEstimator.estimate(prepared.moments(), prepared.startValues(),
@@ -60,12 +76,17 @@ final class FitCommand implements Callable<Integer> {
                 ? SensitivityGrid.run(prepared.moments(), prepared.startValues(), fit, spec.estimation().centered(),
                         choice -> new GmmOptions(spec.estimation().method(), choice))
                 : List.of();
+        ObjectNode results = JsonResults.fit(spec, prepared.sample(), fit);
+        if (sensitivity) {
+            SensitivityReport.addTo(results, grid, prepared.moments().parameterNames());
+        }
         if (json != null) {
-            ObjectNode results = JsonResults.fit(spec, prepared.sample(), fit);
-            if (sensitivity) {
-                SensitivityReport.addTo(results, grid, prepared.moments().parameterNames());
-            }
             OutputFiles.writeAtomically(json, JsonResults.text(results));
+        }
+        if (out != null) {
+            FitReport.writeFolder(OutputFiles.folderOrDefault(out, modelFile), overwrite, results, spec, prepared, fit,
+                    new Manifest.Run("fit", commandSpec.commandLine().getParseResult().originalArgs(),
+                            Version.current(), started, java.util.Map.of()));
         }
         if (!quiet) {
             PrintWriter out = commandSpec.commandLine().getOut();

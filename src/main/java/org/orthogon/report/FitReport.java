@@ -1,0 +1,175 @@
+package org.orthogon.report;
+
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import org.ejml.data.DMatrixRMaj;
+import org.orthogon.gmm.ChiSquareTest;
+import org.orthogon.gmm.GmmFit;
+import org.orthogon.gmm.ParameterEstimate;
+import org.orthogon.gmm.PricingError;
+import org.orthogon.moments.MomentAlgebra;
+import org.orthogon.spec.PreparedRun;
+import org.orthogon.spec.RunSpec;
+import tools.jackson.databind.node.ObjectNode;
+
+/**
+ * The report of one {@code fit}: parameter, overidentification and pricing-error tables, the
+ * pricing-error chart and, where it is well defined, realised against model-implied mean returns;
+ * and the output folder that holds them (docs/output.md describes every file).
+ */
+public final class FitReport {
+    private FitReport() {
+    }
+
+    /** The document of one fit. */
+    public static Report build(RunSpec spec, PreparedRun prepared, GmmFit fit) {
+        var sample = prepared.sample();
+        Report.Builder report = Report.builder(spec.title())
+                .subtitle(String.format(Locale.ROOT, "%s SDF, %s GMM; %s sample %s to %s, T = %d",
+                        spec.model().family().id(), fit.method().id(), sample.frequency(), sample.start(),
+                        sample.end(), sample.observations()))
+                .subtitle(String.format(Locale.ROOT, "N = %d test assets, K = %d moments, P = %d parameters",
+                        prepared.assets().size(), fit.momentCount(), fit.parameters().size()))
+                .subtitle("Long-run covariance: " + ConsoleReport.describeLongRun(fit));
+        report.section("Parameters").table(parameters(fit));
+        report.section("Overidentifying restrictions").table(overidentification(fit));
+        List<double[]> means = realisedAndImplied(spec, prepared, fit);
+        report.section("Pricing errors").table(pricingErrors(fit, means)).chart(errorChart(fit));
+        if (means != null) {
+            report.chart(scatter(prepared.assets(), means));
+        }
+        if (!prepared.notes().isEmpty()) {
+            report.section("Data preparation");
+            prepared.notes().forEach(report::paragraph);
+        }
+        return report.warnings(fit.warnings()).build();
+    }
+
+    /**
+     * Writes the output folder of one fit: {@code results.json} (exactly what {@code --json} writes),
+     * the tables, charts and HTML report, and {@code manifest.json} last. Nothing is visible under
+     * {@code target} until every file is complete.
+     *
+     * @return the folder written
+     */
+    public static Path writeFolder(Path target, boolean overwrite, ObjectNode results, RunSpec spec,
+            PreparedRun prepared, GmmFit fit, Manifest.Run run) {
+        Report report = build(spec, prepared, fit);
+        try (OutputFolder folder = OutputFolder.create(target, overwrite)) {
+            folder.write("results.json", JsonResults.text(results));
+            ReportFiles.write(report, folder);
+            ObjectNode manifest = Manifest.of(run, List.of(spec), List.of(prepared.inputs()), folder.written());
+            folder.write(OutputFolder.MANIFEST, JsonResults.text(manifest));
+            return folder.publish();
+        }
+    }
+
+    /** The parameter table, standard errors under the estimates. */
+    public static Table parameters(GmmFit fit) {
+        Table.Builder table = Table.builder("parameters", "Parameter estimates", "parameter", "estimate",
+                "std. error", "t-stat", "p-value").errorUnder("estimate", "std. error");
+        for (ParameterEstimate p : fit.parameters()) {
+            table.row(Cell.text(p.name()), Cell.number(p.estimate()), Cell.number(p.stdError()),
+                    Cell.fixed(p.tStat(), 2), Cell.fixed(p.pValue(), 4));
+        }
+        ChiSquareTest over = fit.overidentification();
+        return table.note("Standard errors in parentheses; p-values two-sided against zero, normal approximation.")
+                .note(String.format(Locale.ROOT, "%s = %s with %d degrees of freedom, p-value %s.", testName(over),
+                        ConsoleReport.fixed(over.statistic(), 3), over.df(), ConsoleReport.fixed(over.pValue(), 4)))
+                .note(String.format(Locale.ROOT, "%s GMM, T = %d.", fit.method().id(), fit.observations()))
+                .build();
+    }
+
+    /** The overidentification test and the joint test of the pricing errors. */
+    public static Table overidentification(GmmFit fit) {
+        Table.Builder table = Table.builder("overidentification", "Tests of the overidentifying restrictions",
+                "test", "statistic", "df", "p-value");
+        ChiSquareTest over = fit.overidentification();
+        ChiSquareTest joint = fit.pricingErrorsJoint();
+        table.row(Cell.text(testName(over)), Cell.fixed(over.statistic(), 3), Cell.count(over.df()),
+                Cell.fixed(over.pValue(), 4));
+        if (!joint.kind().equals(over.kind())) {
+            table.row(Cell.text(testName(joint)), Cell.fixed(joint.statistic(), 3), Cell.count(joint.df()),
+                    Cell.fixed(joint.pValue(), 4));
+        }
+        return table.note("p-values from the chi-square distribution with K - P degrees of freedom, a large-sample "
+                + "approximation.").build();
+    }
+
+    private static String testName(ChiSquareTest test) {
+        return switch (test.kind()) {
+            case "hansen-j" -> "Hansen J";
+            case "pricing-errors-joint" -> "all pricing errors zero";
+            default -> test.kind();
+        };
+    }
+
+    /** One row per moment; with realised and model-implied means when {@code means} is not null. */
+    static Table pricingErrors(GmmFit fit, List<double[]> means) {
+        List<String> header = new ArrayList<>(List.of("moment", "error", "std. error", "t-stat"));
+        if (means != null) {
+            header.addAll(List.of("realised mean", "model-implied mean"));
+        }
+        Table.Builder table = Table.builder("pricing-errors", "Pricing errors at the estimate", header);
+        for (int i = 0; i < fit.pricingErrors().size(); i++) {
+            PricingError e = fit.pricingErrors().get(i);
+            // Fixed decimals: the column compares returns of one scale, which exponents would hide.
+            List<Cell> row = new ArrayList<>(List.of(Cell.text(e.asset()), Cell.fixed(e.error(), 6),
+                    Cell.fixed(e.stdError(), 6), Cell.fixed(e.tStat(), 2)));
+            if (means != null) {
+                row.add(Cell.fixed(means.get(0)[i], 6));
+                row.add(Cell.fixed(means.get(1)[i], 6));
+            }
+            table.row(row);
+        }
+        ChiSquareTest joint = fit.pricingErrorsJoint();
+        table.note("Error: the sample mean of the moment at the estimate, g_T. Decimals, per period.");
+        if (means != null) {
+            table.note("Realised mean: sample mean excess return. Model-implied mean: realised minus error.");
+        }
+        return table.note(String.format(Locale.ROOT, "All errors zero: chi-square %s, %d degrees of freedom, "
+                + "p-value %s.", ConsoleReport.fixed(joint.statistic(), 3), joint.df(),
+                ConsoleReport.fixed(joint.pValue(), 4))).build();
+    }
+
+    private static Chart errorChart(GmmFit fit) {
+        return new Chart.ErrorBars("pricing-errors", "Pricing errors with 95% bands (±1.96 standard errors)",
+                "moment", "pricing error", fit.pricingErrors().stream()
+                        .map(e -> new Chart.Estimate(e.asset(), e.error(), e.stdError())).toList());
+    }
+
+    private static Chart scatter(List<String> assets, List<double[]> means) {
+        List<Chart.Point> points = new ArrayList<>();
+        for (int i = 0; i < assets.size(); i++) {
+            points.add(new Chart.Point(assets.get(i), means.get(1)[i], means.get(0)[i]));
+        }
+        return new Chart.Scatter("realised-vs-implied", "Realised against model-implied mean excess returns",
+                "model-implied mean excess return", "realised mean excess return", points);
+    }
+
+    /**
+     * Realised and model-implied mean excess returns per asset, or null where the pair is not well
+     * defined. For a linear SDF m = 1 - b'F on excess returns the moment is g_i = mean(R^e_i) -
+     * b' mean(R^e_i F), so the model-implied mean is mean(R^e_i F)' b = mean(R^e_i) - g_i. Power
+     * utility prices gross returns in units of price (mean of m R - 1), and instruments turn each
+     * asset into several moments; neither has one implied mean return per asset, so only the
+     * pricing-error chart is drawn for them.
+     */
+    static List<double[]> realisedAndImplied(RunSpec spec, PreparedRun prepared, GmmFit fit) {
+        boolean oneMomentPerAsset = prepared.moments().momentNames().equals(prepared.assets());
+        if (spec.model().family() != RunSpec.Family.LINEAR_FACTOR || !oneMomentPerAsset) {
+            return null;
+        }
+        DMatrixRMaj means = MomentAlgebra.columnMeans(prepared.moments().payoffs());
+        int n = prepared.assets().size();
+        double[] realised = new double[n];
+        double[] implied = new double[n];
+        for (int i = 0; i < n; i++) {
+            realised[i] = means.get(i, 0);
+            implied[i] = realised[i] - fit.pricingErrors().get(i).error();
+        }
+        return List.of(realised, implied);
+    }
+}
