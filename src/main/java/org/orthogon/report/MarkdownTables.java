@@ -47,7 +47,7 @@ public final class MarkdownTables {
     static String escape(String text) {
         StringBuilder out = new StringBuilder(text.length());
         for (char ch : text.toCharArray()) {
-            if ("\\|*_`[]<>#".indexOf(ch) >= 0) {
+            if ("\\|*_`[]<>#$".indexOf(ch) >= 0) {
                 out.append('\\');
             }
             out.append(ch == '\n' ? ' ' : ch);

@@ -1,0 +1,48 @@
+package org.orthogon.report;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.awt.image.BufferedImage;
+import java.io.ByteArrayInputStream;
+import java.io.IOException;
+import java.util.List;
+import javax.imageio.ImageIO;
+import org.jsoup.Jsoup;
+import org.jsoup.nodes.Document;
+import org.jsoup.parser.Parser;
+import org.junit.jupiter.api.Test;
+
+class ChartRendererTest {
+
+    @Test
+    void everyKindDrawsAPngOfTheAskedSize() throws IOException {
+        for (Chart chart : Samples.report().charts()) {
+            byte[] png = ChartRenderer.png(chart, 640, 400);
+            BufferedImage image = ImageIO.read(new ByteArrayInputStream(png));
+            assertThat(image.getWidth()).as(chart.id()).isEqualTo(640);
+            assertThat(image.getHeight()).as(chart.id()).isEqualTo(400);
+        }
+    }
+
+    @Test
+    void svgDocumentsKeepTitlesLabelsAndRotatedTicksAsText() {
+        for (Chart chart : Samples.report().charts()) {
+            String svg = ChartRenderer.svgDocument(chart, ChartRenderer.WIDTH, ChartRenderer.HEIGHT);
+            Document doc = Jsoup.parse(svg, Parser.xmlParser());
+            assertThat(doc.select("svg")).hasSize(1);
+            assertThat(doc.select("text").eachText()).as(chart.id()).contains(chart.title(), chart.xLabel(),
+                    chart.yLabel());
+        }
+        Chart many = new Chart.ErrorBars("many", "Twelve portfolios", "portfolio", "error",
+                List.of("S1T1", "S1T2", "S1T3", "S1T4", "S2T1", "S2T2", "S2T3", "S2T4", "S3T1", "S3T2", "S3T3",
+                        "S3T4").stream().map(name -> new Chart.Estimate(name, 0.001, 0.0005)).toList());
+        Document doc = Jsoup.parse(ChartRenderer.svgDocument(many, 760, 460), Parser.xmlParser());
+        assertThat(doc.select("text").eachText()).contains("S1T1", "S3T4");
+    }
+
+    @Test
+    void periodLabelsBecomeEvenlySpacedYears() {
+        assertThat(ChartRenderer.positions(List.of("1990-01", "1990-07", "1990Q3", "1991")))
+                .containsExactly(1990.0, 1990.5, 1990.5, 1991.0);
+    }
+}
