@@ -223,30 +223,46 @@ public final class ChartRenderer {
     }
 
     private static JFreeChart bands(Chart.Bands spec) {
-        YIntervalSeriesCollection data = new YIntervalSeriesCollection();
         double[] x = positions(spec.dates());
-        for (Chart.Path path : spec.paths()) {
-            YIntervalSeries series = new YIntervalSeries(path.name(), false, true);
+        XYSeriesCollection lines = new XYSeriesCollection();
+        YIntervalSeriesCollection bands = new YIntervalSeriesCollection();
+        XYLineAndShapeRenderer lineRenderer = new XYLineAndShapeRenderer(true, false);
+        DeviationRenderer bandRenderer = new DeviationRenderer(false, false);
+        bandRenderer.setAlpha(0.2f);
+        for (int p = 0; p < spec.paths().size(); p++) {
+            Chart.Path path = spec.paths().get(p);
+            Color colour = SERIES[p % SERIES.length];
+            XYSeries line = new XYSeries(path.name(), false);
+            for (int i = 0; i < x.length; i++) {
+                line.add(x[i], path.values().get(i));
+            }
+            lines.addSeries(line);
+            lineRenderer.setSeriesPaint(p, colour);
+            lineRenderer.setSeriesStroke(p, new BasicStroke(1.6f));
+            // A date without a standard error splits the band, so no interval is drawn where none is known.
+            YIntervalSeries band = null;
             for (int i = 0; i < x.length; i++) {
                 double value = path.values().get(i);
                 double half = Chart.BAND * path.stdErrors().get(i);
-                if (!Double.isFinite(half)) {
-                    half = 0.0;
+                if (!Double.isFinite(half) || !Double.isFinite(value)) {
+                    band = null;
+                    continue;
                 }
-                series.add(x[i], value, value - half, value + half);
+                if (band == null) {
+                    band = new YIntervalSeries(path.name() + " band " + bands.getSeriesCount(), false, true);
+                    bandRenderer.setSeriesFillPaint(bands.getSeriesCount(), colour);
+                    bandRenderer.setSeriesPaint(bands.getSeriesCount(), colour);
+                    bandRenderer.setSeriesVisibleInLegend(bands.getSeriesCount(), false);
+                    bands.addSeries(band);
+                }
+                band.add(x[i], value, value - half, value + half);
             }
-            data.addSeries(series);
         }
-        DeviationRenderer renderer = new DeviationRenderer(true, false);
-        for (int s = 0; s < spec.paths().size(); s++) {
-            Color colour = SERIES[s % SERIES.length];
-            renderer.setSeriesPaint(s, colour);
-            renderer.setSeriesFillPaint(s, colour);
-            renderer.setSeriesStroke(s, new BasicStroke(1.6f));
-        }
-        renderer.setAlpha(0.18f);
-        XYPlot plot = new XYPlot(data, yearAxis(spec.xLabel()), axis(spec.yLabel()), renderer);
-        ((NumberAxis) plot.getRangeAxis()).setAutoRangeIncludesZero(false);
+        XYPlot plot = new XYPlot(lines, yearAxis(spec.xLabel()), axis(spec.yLabel()), lineRenderer);
+        plot.setDataset(1, bands);
+        plot.setRenderer(1, bandRenderer);
+        // Bands behind the lines.
+        plot.setDatasetRenderingOrder(org.jfree.chart.plot.DatasetRenderingOrder.REVERSE);
         style(plot);
         return new JFreeChart(null, LABEL, plot, spec.paths().size() > 1);
     }
@@ -307,6 +323,8 @@ public final class ChartRenderer {
             marker.setLabel(label);
             marker.setLabelFont(TICK);
             marker.setLabelPaint(REFERENCE);
+            marker.setLabelBackgroundColor(new Color(255, 255, 255, 0));
+            marker.setLabelOffset(new RectangleInsets(2, 4, 2, 4));
             marker.setLabelAnchor(RectangleAnchor.TOP_RIGHT);
             marker.setLabelTextAnchor(TextAnchor.BOTTOM_RIGHT);
         }

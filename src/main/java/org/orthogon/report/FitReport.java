@@ -125,7 +125,7 @@ public final class FitReport {
             table.row(row);
         }
         ChiSquareTest joint = fit.pricingErrorsJoint();
-        table.note("Error: the sample mean of the moment at the estimate, g_T. Decimals, per period.");
+        table.note("Error: the sample mean of the moment at the estimate (g_T), in decimals per period.");
         if (means != null) {
             table.note("Realised mean: sample mean excess return. Model-implied mean: realised minus error.");
         }

@@ -1,6 +1,7 @@
 package org.orthogon.report;
 
 import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.within;
 
 import java.awt.image.BufferedImage;
 import java.io.ByteArrayInputStream;
@@ -10,6 +11,9 @@ import javax.imageio.ImageIO;
 import org.jsoup.Jsoup;
 import org.jsoup.nodes.Document;
 import org.jsoup.parser.Parser;
+import org.jfree.chart.plot.XYPlot;
+import org.jfree.data.xy.XYDataset;
+import org.jfree.data.xy.YIntervalSeriesCollection;
 import org.junit.jupiter.api.Test;
 
 class ChartRendererTest {
@@ -38,6 +42,30 @@ class ChartRendererTest {
                         "S3T4").stream().map(name -> new Chart.Estimate(name, 0.001, 0.0005)).toList());
         Document doc = Jsoup.parse(ChartRenderer.svgDocument(many, 760, 460), Parser.xmlParser());
         assertThat(doc.select("text").eachText()).contains("S1T1", "S3T4");
+    }
+
+    @Test
+    void aMissingStandardErrorSplitsTheBandButNotTheLine() {
+        Chart bands = Samples.report().charts().stream().filter(c -> c.id().equals("rolling-paths")).findFirst()
+                .orElseThrow();
+        XYPlot plot = ChartRenderer.build(bands).getXYPlot();
+        XYDataset line = plot.getDataset(0);
+        YIntervalSeriesCollection band = (YIntervalSeriesCollection) plot.getDataset(1);
+        assertThat(line.getItemCount(0)).isEqualTo(5);
+        // Dates 1990-1991 and 1993-1994 have errors; 1992 has none.
+        assertThat(band.getSeriesCount()).isEqualTo(2);
+        assertThat(band.getItemCount(0)).isEqualTo(2);
+        assertThat(band.getStartYValue(0, 0)).isCloseTo(4.1 - 1.96 * 1.2, within(1e-12));
+        assertThat(band.getEndYValue(1, 1)).isCloseTo(4.7 + 1.96 * 0.9, within(1e-12));
+    }
+
+    @Test
+    void theCriticalValueLineStaysInsideTheSequencePlot() {
+        Chart sequence = new Chart.Sequence("w", "Wald", "break date", "Wald", List.of("1990-01", "1991-01"),
+                List.of(1.0, 2.0), 14.13, "5% critical value");
+        XYPlot plot = ChartRenderer.build(sequence).getXYPlot();
+        assertThat(plot.getRangeAxis().getUpperBound()).isGreaterThan(14.13);
+        assertThat(plot.getRangeMarkers(org.jfree.chart.ui.Layer.FOREGROUND)).hasSize(1);
     }
 
     @Test
