@@ -9,6 +9,7 @@ import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
 import java.util.Comparator;
 import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.Map;
 import java.util.stream.Stream;
 import org.orthogon.data.InputException;
@@ -127,14 +128,14 @@ public final class OutputFolder implements AutoCloseable {
         written.put(name, Hashes.sha256(bytes));
     }
 
-    /** Every file written so far, in order, with its SHA-256 (lower-case hex). */
+    /** Every file written so far with its SHA-256 (lower-case hex), in the order written. */
     public Map<String, String> written() {
-        return Map.copyOf(written);
+        return java.util.Collections.unmodifiableMap(new LinkedHashMap<>(written));
     }
 
     /** The names written so far, in the order they were written. */
-    public java.util.List<String> names() {
-        return java.util.List.copyOf(written.keySet());
+    public List<String> names() {
+        return List.copyOf(written.keySet());
     }
 
     /**
