@@ -143,12 +143,15 @@ public final class ChartRenderer {
         XYSeries series = new XYSeries("assets", false);
         double low = Double.POSITIVE_INFINITY;
         double high = Double.NEGATIVE_INFINITY;
-        for (Chart.Point p : spec.points()) {
+        // A point without both coordinates cannot be placed; leaving it out keeps the axes finite.
+        List<Chart.Point> points = spec.points().stream()
+                .filter(p -> Double.isFinite(p.x()) && Double.isFinite(p.y())).toList();
+        for (Chart.Point p : points) {
             series.add(p.x(), p.y());
             low = Math.min(low, Math.min(p.x(), p.y()));
             high = Math.max(high, Math.max(p.x(), p.y()));
         }
-        if (spec.points().isEmpty()) {
+        if (points.isEmpty()) {
             low = 0;
             high = 1;
         }
@@ -159,7 +162,7 @@ public final class ChartRenderer {
         renderer.setSeriesPaint(0, ACCENT);
         renderer.setSeriesShape(0, new Ellipse2D.Double(-4, -4, 8, 8));
         XYPlot plot = new XYPlot(new XYSeriesCollection(series), axis(spec.xLabel()), axis(spec.yLabel()), renderer);
-        label(plot, spec.points(), range.getLength());
+        label(plot, points, range.getLength());
         plot.getDomainAxis().setRange(range);
         plot.getRangeAxis().setRange(range);
         XYLineAnnotation diagonal = new XYLineAnnotation(range.getLowerBound(), range.getLowerBound(),
@@ -196,8 +199,9 @@ public final class ChartRenderer {
         DefaultStatisticalCategoryDataset data = new DefaultStatisticalCategoryDataset();
         for (Chart.Estimate e : spec.estimates()) {
             // The renderer draws value ± the second number, so the band half-width goes there.
-            data.add(e.value(), Chart.BAND * (Double.isFinite(e.stdError()) ? e.stdError() : 0.0), "estimate",
-                    e.label());
+            // A missing value stays a labelled empty slot, so the axis still lists every item.
+            data.add(Double.isFinite(e.value()) ? e.value() : null,
+                    Double.isFinite(e.stdError()) ? Chart.BAND * e.stdError() : null, "estimate", e.label());
         }
         StatisticalLineAndShapeRenderer renderer = new StatisticalLineAndShapeRenderer(false, true);
         renderer.setSeriesPaint(0, ACCENT);

@@ -56,14 +56,8 @@ public final class FitReport {
      */
     public static Path writeFolder(Path target, boolean overwrite, ObjectNode results, RunSpec spec,
             PreparedRun prepared, GmmFit fit, Manifest.Run run) {
-        Report report = build(spec, prepared, fit);
-        try (OutputFolder folder = OutputFolder.create(target, overwrite)) {
-            folder.write("results.json", JsonResults.text(results));
-            ReportFiles.write(report, folder);
-            ObjectNode manifest = Manifest.of(run, List.of(spec), List.of(prepared.inputs()), folder.written());
-            folder.write(OutputFolder.MANIFEST, JsonResults.text(manifest));
-            return folder.publish();
-        }
+        return ReportFiles.publish(target, overwrite, build(spec, prepared, fit), results, run, List.of(spec),
+                List.of(prepared.inputs()));
     }
 
     /** The parameter table, standard errors under the estimates. */

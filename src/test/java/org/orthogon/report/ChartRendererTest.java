@@ -69,6 +69,22 @@ class ChartRendererTest {
     }
 
     @Test
+    void missingNumbersAndMarkupInLabelsDoNotBreakTheDrawing() {
+        Chart scatter = new Chart.Scatter("odd", "S&P <tide>", "implied", "realised", List.of(
+                new Chart.Point("A&B", 0.001, 0.002), new Chart.Point("gap", Double.NaN, 0.003),
+                new Chart.Point("<C>", 0.004, 0.0035)));
+        Chart bars = new Chart.ErrorBars("odd-bars", "bars", "asset", "error", List.of(
+                new Chart.Estimate("S1T1", 0.001, Double.NaN), new Chart.Estimate("S1T2", Double.NaN, 0.001)));
+        for (Chart chart : List.of(scatter, bars)) {
+            Document doc = Jsoup.parse(ChartRenderer.svgDocument(chart, 760, 460), Parser.xmlParser());
+            assertThat(doc.select("text").eachText()).contains(chart.title());
+            assertThat(ChartRenderer.png(chart, 300, 200)).isNotEmpty();
+        }
+        Document doc = Jsoup.parse(ChartRenderer.svgDocument(scatter, 760, 460), Parser.xmlParser());
+        assertThat(doc.select("text").eachText()).contains("A&B", "<C>").doesNotContain("gap");
+    }
+
+    @Test
     void periodLabelsBecomeEvenlySpacedYears() {
         assertThat(ChartRenderer.positions(List.of("1990-01", "1990-07", "1990Q3", "1991")))
                 .containsExactly(1990.0, 1990.5, 1990.5, 1991.0);
