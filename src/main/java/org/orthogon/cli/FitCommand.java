@@ -2,12 +2,15 @@ package org.orthogon.cli;
 
 import java.io.PrintWriter;
 import java.nio.file.Path;
+import java.time.Instant;
 import java.util.List;
+import java.util.Map;
 import java.util.concurrent.Callable;
 import org.orthogon.analysis.SensitivityGrid;
 import org.orthogon.gmm.GmmEstimator;
 import org.orthogon.gmm.GmmFit;
 import org.orthogon.gmm.GmmOptions;
+import org.orthogon.report.CheckReport;
 import org.orthogon.report.ConsoleReport;
 import org.orthogon.report.FitReport;
 import org.orthogon.report.Manifest;
@@ -63,7 +66,7 @@ final class FitCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
-        java.time.Instant started = java.time.Instant.now();
+        Instant started = Instant.now();
         if (out != null) {
             // Refuse an unusable folder before the estimation, not after it.
             OutputFolder.check(OutputFiles.folderOrDefault(out, modelFile), overwrite);
@@ -83,16 +86,20 @@ final class FitCommand implements Callable<Integer> {
         if (json != null) {
             OutputFiles.writeAtomically(json, JsonResults.text(results));
         }
+        Path folder = null;
         if (out != null) {
-            FitReport.writeFolder(OutputFiles.folderOrDefault(out, modelFile), overwrite, results, spec, prepared, fit,
+            folder = FitReport.writeFolder(OutputFiles.folderOrDefault(out, modelFile), overwrite, results, spec, prepared, fit,
                     new Manifest.Run("fit", commandSpec.commandLine().getParseResult().originalArgs(),
-                            Version.current(), started, java.util.Map.of()));
+                            Version.current(), started, Map.of()));
         }
         if (!quiet) {
             PrintWriter out = commandSpec.commandLine().getOut();
             out.print(ConsoleReport.render(spec, prepared.sample(), fit, prepared.notes()));
             if (sensitivity) {
                 out.print("\n" + SensitivityReport.render(grid, prepared.moments().parameterNames()));
+            }
+            if (folder != null) {
+                out.println("\nReport folder: " + CheckReport.display(folder));
             }
             out.flush();
         }

@@ -174,25 +174,62 @@ public final class ChartRenderer {
     }
 
     /**
-     * Labels each point to its right, or to its left when an earlier point lies so close that the
-     * two labels would overlap; a nudge of a fiftieth of the axis keeps text off the marker.
+     * Labels each point beside it: to the right, else to the left, above or below, whichever first
+     * keeps clear of the labels already placed and of the other markers (the least crowded when none
+     * is clear). Sizes are estimated in data units from the plot's usual size in pixels, which is
+     * enough to keep neighbouring portfolio names apart.
      */
     private static void label(XYPlot plot, List<Chart.Point> points, double span) {
-        double near = span * 0.06;
-        double nudge = span * 0.012;
+        double charWidth = span * 0.0105;
+        double lineHeight = span * 0.036;
+        double markerX = span * 0.008;
+        double markerY = span * 0.014;
+        double gapX = span * 0.01;
+        double gapY = span * 0.012;
+        List<double[]> taken = new java.util.ArrayList<>();
+        for (Chart.Point p : points) {
+            taken.add(new double[] {p.x() - markerX, p.y() - markerY, p.x() + markerX, p.y() + markerY});
+        }
+        TextAnchor[] anchors = {TextAnchor.CENTER_LEFT, TextAnchor.CENTER_RIGHT, TextAnchor.BOTTOM_CENTER,
+            TextAnchor.TOP_CENTER};
         for (int i = 0; i < points.size(); i++) {
             Chart.Point p = points.get(i);
-            boolean crowded = false;
-            for (int j = 0; j < i; j++) {
-                Chart.Point q = points.get(j);
-                crowded |= Math.abs(q.x() - p.x()) < near && Math.abs(q.y() - p.y()) < near / 3;
+            double width = charWidth * p.label().length();
+            double[][] boxes = {
+                {p.x() + gapX, p.y() - lineHeight / 2, p.x() + gapX + width, p.y() + lineHeight / 2},
+                {p.x() - gapX - width, p.y() - lineHeight / 2, p.x() - gapX, p.y() + lineHeight / 2},
+                {p.x() - width / 2, p.y() + gapY, p.x() + width / 2, p.y() + gapY + lineHeight},
+                {p.x() - width / 2, p.y() - gapY - lineHeight, p.x() + width / 2, p.y() - gapY}};
+            double[] anchorX = {p.x() + gapX, p.x() - gapX, p.x(), p.x()};
+            double[] anchorY = {p.y(), p.y(), p.y() + gapY, p.y() - gapY};
+            int best = 0;
+            double bestOverlap = Double.POSITIVE_INFINITY;
+            for (int c = 0; c < boxes.length && bestOverlap > 0; c++) {
+                double overlap = 0;
+                for (int j = 0; j < taken.size(); j++) {
+                    if (j != i) {
+                        overlap += overlap(boxes[c], taken.get(j));
+                    }
+                }
+                if (overlap < bestOverlap) {
+                    bestOverlap = overlap;
+                    best = c;
+                }
             }
-            XYTextAnnotation text = new XYTextAnnotation(p.label(), crowded ? p.x() - nudge : p.x() + nudge, p.y());
+            taken.add(boxes[best]);
+            XYTextAnnotation text = new XYTextAnnotation(p.label(), anchorX[best], anchorY[best]);
             text.setFont(TICK);
             text.setPaint(INK);
-            text.setTextAnchor(crowded ? TextAnchor.CENTER_RIGHT : TextAnchor.CENTER_LEFT);
+            text.setTextAnchor(anchors[best]);
             plot.addAnnotation(text);
         }
+    }
+
+    /** The area two boxes {x0, y0, x1, y1} share. */
+    private static double overlap(double[] a, double[] b) {
+        double w = Math.min(a[2], b[2]) - Math.max(a[0], b[0]);
+        double h = Math.min(a[3], b[3]) - Math.max(a[1], b[1]);
+        return w > 0 && h > 0 ? w * h : 0;
     }
 
     private static JFreeChart errorBars(Chart.ErrorBars spec) {

@@ -10,13 +10,14 @@ import org.orthogon.gmm.GmmFit;
 import org.orthogon.gmm.ParameterEstimate;
 import org.orthogon.gmm.PricingError;
 import org.orthogon.moments.MomentAlgebra;
+import org.orthogon.moments.MomentModel;
 import org.orthogon.spec.PreparedRun;
 import org.orthogon.spec.RunSpec;
 import tools.jackson.databind.node.ObjectNode;
 
 /**
  * The report of one {@code fit}: parameter, overidentification and pricing-error tables, the
- * pricing-error chart and, where it is well defined, realised against model-implied mean returns;
+ * pricing-error chart and, without instruments, realised against model-implied mean returns;
  * and the output folder that holds them (docs/output.md describes every file).
  */
 public final class FitReport {
@@ -36,9 +37,9 @@ public final class FitReport {
         report.section("Parameters").table(parameters(fit));
         report.section("Overidentifying restrictions").table(overidentification(fit));
         List<double[]> means = realisedAndImplied(spec, prepared, fit);
-        report.section("Pricing errors").table(pricingErrors(fit, means)).chart(errorChart(fit));
+        report.section("Pricing errors").table(pricingErrors(fit, means, payoffName(spec))).chart(errorChart(fit));
         if (means != null) {
-            report.chart(scatter(prepared.assets(), means));
+            report.chart(scatter(prepared.assets(), means, payoffName(spec)));
         }
         if (!prepared.notes().isEmpty()) {
             report.section("Data preparation");
@@ -101,7 +102,7 @@ public final class FitReport {
     }
 
     /** One row per moment; with realised and model-implied means when {@code means} is not null. */
-    static Table pricingErrors(GmmFit fit, List<double[]> means) {
+    static Table pricingErrors(GmmFit fit, List<double[]> means, String payoff) {
         List<String> header = new ArrayList<>(List.of("moment", "error", "std. error", "t-stat"));
         if (means != null) {
             header.addAll(List.of("realised mean", "model-implied mean"));
@@ -121,7 +122,8 @@ public final class FitReport {
         ChiSquareTest joint = fit.pricingErrorsJoint();
         table.note("Error: the sample mean of the moment at the estimate (g_T), in decimals per period.");
         if (means != null) {
-            table.note("Realised mean: sample mean excess return. Model-implied mean: realised minus error.");
+            table.note(String.format(Locale.ROOT, "Realised mean: sample mean %s. Model-implied mean: realised "
+                    + "minus error / mean SDF, with mean SDF %s.", payoff, ConsoleReport.fixed(means.get(2)[0], 6)));
         }
         return table.note(String.format(Locale.ROOT, "All errors zero: chi-square %s, %d degrees of freedom, "
                 + "p-value %s.", ConsoleReport.fixed(joint.statistic(), 3), joint.df(),
@@ -134,36 +136,61 @@ public final class FitReport {
                         .map(e -> new Chart.Estimate(e.asset(), e.error(), e.stdError())).toList());
     }
 
-    private static Chart scatter(List<String> assets, List<double[]> means) {
+    /** What the payoffs are, for labels: the linear families price excess returns, power utility gross returns. */
+    private static String payoffName(RunSpec spec) {
+        return spec.model().family() == RunSpec.Family.POWER_UTILITY ? "gross return" : "excess return";
+    }
+
+    private static Chart scatter(List<String> assets, List<double[]> means, String payoff) {
         List<Chart.Point> points = new ArrayList<>();
         for (int i = 0; i < assets.size(); i++) {
             points.add(new Chart.Point(assets.get(i), means.get(1)[i], means.get(0)[i]));
         }
-        return new Chart.Scatter("realised-vs-implied", "Realised against model-implied mean excess returns",
-                "model-implied mean excess return", "realised mean excess return", points);
+        return new Chart.Scatter("realised-vs-implied", "Realised against model-implied mean " + payoff + "s",
+                "model-implied mean " + payoff, "realised mean " + payoff, points);
     }
 
     /**
-     * Realised and model-implied mean excess returns per asset, or null where the pair is not well
-     * defined. For a linear SDF m = 1 - b'F on excess returns the moment is g_i = mean(R^e_i) -
-     * b' mean(R^e_i F), so the model-implied mean is mean(R^e_i F)' b = mean(R^e_i) - g_i. Power
-     * utility prices gross returns in units of price (mean of m R - 1), and instruments turn each
-     * asset into several moments; neither has one implied mean return per asset, so only the
-     * pricing-error chart is drawn for them.
+     * Realised and model-implied mean payoffs per asset, and the mean discount factor; null where the
+     * pair is not defined (moments scaled by instruments: each asset gives several moments, none of
+     * which is a mean return).
+     *
+     * <p>Each moment is g_i = (1/T) Σ_t m_t x_{t,i} - p_i, with x the payoff (excess return, price
+     * p = 0, for linear SDFs; gross return, p = 1, for power utility). In expected-return units the
+     * pricing error is α_i = g_i / m̄, m̄ = (1/T) Σ_t m_t, and the model-implied mean is
+     * x̄_i - α_i = (p_i - Cov_T(m, x_i)) / m̄. The moments give m_t exactly: m_t x_{t,i} = f_{t,i} + p,
+     * so m_t = Σ_i (f_{t,i} + p) x_{t,i} / Σ_i x_{t,i}².
+     *
+     * @return realised x̄, implied x̄ - α, and {m̄} as a one-element array; or null
      */
     static List<double[]> realisedAndImplied(RunSpec spec, PreparedRun prepared, GmmFit fit) {
-        boolean oneMomentPerAsset = prepared.moments().momentNames().equals(prepared.assets());
-        if (spec.model().family() != RunSpec.Family.LINEAR_FACTOR || !oneMomentPerAsset) {
+        MomentModel moments = prepared.moments();
+        if (!moments.momentNames().equals(prepared.assets())) {
             return null;
         }
-        DMatrixRMaj means = MomentAlgebra.columnMeans(prepared.moments().payoffs());
-        int n = prepared.assets().size();
+        double price = spec.model().family() == RunSpec.Family.POWER_UTILITY ? 1.0 : 0.0;
+        DMatrixRMaj f = moments.contributions(fit.estimates());
+        DMatrixRMaj x = moments.payoffs();
+        int t = f.numRows;
+        int n = f.numCols;
+        double meanSdf = 0.0;
+        for (int row = 0; row < t; row++) {
+            double cross = 0.0;
+            double squares = 0.0;
+            for (int i = 0; i < n; i++) {
+                cross += (f.get(row, i) + price) * x.get(row, i);
+                squares += x.get(row, i) * x.get(row, i);
+            }
+            meanSdf += cross / squares;
+        }
+        meanSdf /= t;
+        DMatrixRMaj means = MomentAlgebra.columnMeans(x);
         double[] realised = new double[n];
         double[] implied = new double[n];
         for (int i = 0; i < n; i++) {
             realised[i] = means.get(i, 0);
-            implied[i] = realised[i] - fit.pricingErrors().get(i).error();
+            implied[i] = realised[i] - fit.pricingErrors().get(i).error() / meanSdf;
         }
-        return List.of(realised, implied);
+        return List.of(realised, implied, new double[] {meanSdf});
     }
 }

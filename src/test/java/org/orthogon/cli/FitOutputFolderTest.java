@@ -1,6 +1,7 @@
 package org.orthogon.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.within;
 
 import java.io.IOException;
 import java.nio.file.Files;
@@ -9,6 +10,7 @@ import java.security.MessageDigest;
 import java.security.NoSuchAlgorithmException;
 import java.util.HexFormat;
 import java.util.List;
+import java.util.Locale;
 import java.util.stream.Stream;
 import org.jsoup.Jsoup;
 import org.jsoup.nodes.Document;
@@ -57,10 +59,21 @@ class FitOutputFolderTest {
     }
 
     @Test
-    void scatterOfRealisedAgainstImpliedMatchesTheDefinition() throws IOException {
+    void linearSdfImpliedMeansFollowTheDefinition() throws IOException {
         Path out = root.resolve("three");
         assertThat(cli.run("fit", model.toString(), "--out", out.toString(), "--quiet").code()).isZero();
         JsonNode results = JsonMapper.builder().build().readTree(out.resolve("results.json").toFile());
+        // Mean SDF 1 - b' mean(F), from the factor file and the estimates, outside Orthogon's code.
+        List<String> factors = Files.readAllLines(cli.data.resolve("lumen-factors-monthly.csv"));
+        double meanSdf = 0;
+        for (String line : factors.subList(1, factors.size())) {
+            String[] f = line.split(",");
+            double m = 1;
+            for (int k = 0; k < 3; k++) {
+                m -= results.at("/parameters/" + k + "/estimate").asDouble() * Double.parseDouble(f[k + 1]);
+            }
+            meanSdf += m / (factors.size() - 1);
+        }
         List<String> lines = Files.readAllLines(out.resolve("tables/pricing-errors.csv"));
         assertThat(lines.get(0)).isEqualTo("moment,error,std. error,t-stat,realised mean,model-implied mean");
         assertThat(lines).hasSize(13);
@@ -69,20 +82,62 @@ class FitOutputFolderTest {
             JsonNode error = results.at("/pricing_errors/" + (i - 1));
             assertThat(cells[0]).isEqualTo(error.get("asset").asString());
             assertThat(Double.parseDouble(cells[1])).isEqualTo(error.get("error").asDouble());
-            // implied = realised - error, by the definition in docs/output.md
-            assertThat(Double.parseDouble(cells[5])).isCloseTo(Double.parseDouble(cells[4]) - Double.parseDouble(
-                    cells[1]), org.assertj.core.api.Assertions.within(1e-15));
+            assertThat(Double.parseDouble(cells[5])).isCloseTo(Double.parseDouble(cells[4])
+                    - error.get("error").asDouble() / meanSdf, within(1e-14));
         }
         // S1T1's realised mean excess return, recomputed from the CSV files: portfolio minus risk-free rate.
-        assertThat(Double.parseDouble(lines.get(1).split(",")[4])).isCloseTo(meanExcess("S1T1"),
-                org.assertj.core.api.Assertions.within(1e-12));
+        assertThat(Double.parseDouble(lines.get(1).split(",")[4])).isCloseTo(meanExcess("S1T1"), within(1e-12));
+        assertThat(Files.readString(out.resolve("tables/pricing-errors.md")))
+                .contains(String.format(Locale.ROOT, "mean SDF %.6f", meanSdf));
     }
 
     @Test
-    void powerUtilityGetsThePricingErrorChartOnly() throws IOException {
+    void powerUtilityImpliedMeansUseTheConsumptionDiscountFactor() throws IOException {
         Path out = root.resolve("power");
         CliHarness.Result result = cli.run("fit", cli.models.resolve("lumen-power-utility.toml").toString(), "--out",
-                out.toString(), "--quiet");
+                out.toString());
+        assertThat(result.code()).as(result.err()).isZero();
+        assertThat(result.out()).contains("Hansen J test").endsWith("Report folder: " + out.toAbsolutePath() + "\n");
+        assertThat(files(out)).contains("charts/pricing-errors.svg", "charts/realised-vs-implied.svg");
+        JsonNode results = JsonMapper.builder().build().readTree(out.resolve("results.json").toFile());
+        double beta = results.at("/parameters/0/estimate").asDouble();
+        double gamma = results.at("/parameters/1/estimate").asDouble();
+        List<String> consumption = Files.readAllLines(cli.data.resolve("lumen-consumption-quarterly.csv"));
+        double meanSdf = 0;
+        for (String line : consumption.subList(1, consumption.size())) {
+            meanSdf += beta * Math.pow(Double.parseDouble(line.split(",")[1]), -gamma) / (consumption.size() - 1);
+        }
+        String[] first = Files.readAllLines(out.resolve("tables/pricing-errors.csv")).get(1).split(",");
+        // S1T1's mean gross quarterly return, compounding the monthly net returns three at a time.
+        List<String> monthly = Files.readAllLines(cli.data.resolve("lumen-portfolios-monthly.csv"));
+        double realised = 0;
+        for (int q = 0; q < 252; q++) {
+            double gross = 1;
+            for (int m = 1; m <= 3; m++) {
+                gross *= 1 + Double.parseDouble(monthly.get(3 * q + m).split(",")[1]);
+            }
+            realised += gross / 252;
+        }
+        assertThat(Double.parseDouble(first[4])).isCloseTo(realised, within(1e-12));
+        assertThat(Double.parseDouble(first[5])).isCloseTo(realised - Double.parseDouble(first[1]) / meanSdf,
+                within(1e-12));
+        Document html = Jsoup.parse(out.resolve("report.html").toFile());
+        assertThat(html.select("#chart-realised-vs-implied text").eachText()).contains("realised mean gross return");
+    }
+
+    @Test
+    void instrumentsLeaveOnlyThePricingErrorChart() throws IOException {
+        List<String> consumption = Files.readAllLines(cli.data.resolve("lumen-consumption-quarterly.csv"));
+        StringBuilder text = new StringBuilder("date,lag_growth\n");
+        for (String line : consumption.subList(1, consumption.size())) {
+            text.append(line).append('\n');
+        }
+        Files.writeString(cli.data.resolve("lumen-instruments.csv"), text);
+        Path power = cli.models.resolve("lumen-power-utility.toml");
+        cli.edit(power, "macro = ", "instruments = \"../demo-data/lumen-instruments.csv\"\nmacro = ");
+        cli.edit(power, "consumption_column", "instrument_columns = [\"const\", \"lag_growth\"]\nconsumption_column");
+        Path out = root.resolve("scaled");
+        CliHarness.Result result = cli.run("fit", power.toString(), "--out", out.toString(), "--quiet");
         assertThat(result.code()).as(result.err()).isZero();
         assertThat(files(out)).contains("charts/pricing-errors.svg").doesNotContain("charts/realised-vs-implied.svg");
         assertThat(Files.readString(out.resolve("tables/pricing-errors.csv")).lines().findFirst().orElseThrow())
