@@ -36,10 +36,10 @@ public final class FitReport {
                 .subtitle("Long-run covariance: " + ConsoleReport.describeLongRun(fit));
         report.section("Parameters").table(parameters(fit));
         report.section("Overidentifying restrictions").table(overidentification(fit));
-        List<double[]> means = realisedAndImplied(spec, prepared, fit);
-        report.section("Pricing errors").table(pricingErrors(fit, means, payoffName(spec))).chart(errorChart(fit));
+        MeanPayoffs means = realisedAndImplied(prepared, fit);
+        report.section("Pricing errors").table(pricingErrors(fit, means)).chart(errorChart(fit));
         if (means != null) {
-            report.chart(scatter(prepared.assets(), means, payoffName(spec)));
+            report.chart(scatter(prepared.assets(), means));
         }
         if (!prepared.notes().isEmpty()) {
             report.section("Data preparation");
@@ -102,7 +102,7 @@ public final class FitReport {
     }
 
     /** One row per moment; with realised and model-implied means when {@code means} is not null. */
-    static Table pricingErrors(GmmFit fit, List<double[]> means, String payoff) {
+    static Table pricingErrors(GmmFit fit, MeanPayoffs means) {
         List<String> header = new ArrayList<>(List.of("moment", "error", "std. error", "t-stat"));
         if (means != null) {
             header.addAll(List.of("realised mean", "model-implied mean"));
@@ -114,8 +114,8 @@ public final class FitReport {
             List<Cell> row = new ArrayList<>(List.of(Cell.text(e.asset()), Cell.fixed(e.error(), 6),
                     Cell.fixed(e.stdError(), 6), Cell.fixed(e.tStat(), 2)));
             if (means != null) {
-                row.add(Cell.fixed(means.get(0)[i], 6));
-                row.add(Cell.fixed(means.get(1)[i], 6));
+                row.add(Cell.fixed(means.realised()[i], 6));
+                row.add(Cell.fixed(means.implied()[i], 6));
             }
             table.row(row);
         }
@@ -123,7 +123,7 @@ public final class FitReport {
         table.note("Error: the sample mean of the moment at the estimate (g_T), in decimals per period.");
         if (means != null) {
             table.note(String.format(Locale.ROOT, "Realised mean: sample mean %s. Model-implied mean: realised "
-                    + "minus error / mean SDF, with mean SDF %s.", payoff, ConsoleReport.fixed(means.get(2)[0], 6)));
+                    + "minus error / mean SDF, with mean SDF %s.", means.payoff(), ConsoleReport.fixed(means.meanSdf(), 6)));
         }
         return table.note(String.format(Locale.ROOT, "All errors zero: chi-square %s, %d degrees of freedom, "
                 + "p-value %s.", ConsoleReport.fixed(joint.statistic(), 3), joint.df(),
@@ -136,54 +136,85 @@ public final class FitReport {
                         .map(e -> new Chart.Estimate(e.asset(), e.error(), e.stdError())).toList());
     }
 
-    /** What the payoffs are, for labels: the linear families price excess returns, power utility gross returns. */
-    private static String payoffName(RunSpec spec) {
-        return spec.model().family() == RunSpec.Family.POWER_UTILITY ? "gross return" : "excess return";
-    }
-
-    private static Chart scatter(List<String> assets, List<double[]> means, String payoff) {
+    private static Chart scatter(List<String> assets, MeanPayoffs means) {
+        String payoff = means.payoff();
         List<Chart.Point> points = new ArrayList<>();
         for (int i = 0; i < assets.size(); i++) {
-            points.add(new Chart.Point(assets.get(i), means.get(1)[i], means.get(0)[i]));
+            points.add(new Chart.Point(assets.get(i), means.implied()[i], means.realised()[i]));
         }
         return new Chart.Scatter("realised-vs-implied", "Realised against model-implied mean " + payoff + "s",
                 "model-implied mean " + payoff, "realised mean " + payoff, points);
     }
 
     /**
-     * Realised and model-implied mean payoffs per asset, and the mean discount factor; null where the
-     * pair is not defined (moments scaled by instruments: each asset gives several moments, none of
-     * which is a mean return).
+     * Realised and model-implied mean payoffs of the test assets at the estimate.
      *
-     * <p>Each moment is g_i = (1/T) Σ_t m_t x_{t,i} - p_i, with x the payoff (excess return, price
-     * p = 0, for linear SDFs; gross return, p = 1, for power utility). In expected-return units the
-     * pricing error is α_i = g_i / m̄, m̄ = (1/T) Σ_t m_t, and the model-implied mean is
-     * x̄_i - α_i = (p_i - Cov_T(m, x_i)) / m̄. The moments give m_t exactly: m_t x_{t,i} = f_{t,i} + p,
-     * so m_t = Σ_i (f_{t,i} + p) x_{t,i} / Σ_i x_{t,i}².
-     *
-     * @return realised x̄, implied x̄ - α, and {m̄} as a one-element array; or null
+     * @param realised x̄_i, the sample mean payoff
+     * @param implied  x̄_i - g_i / m̄
+     * @param meanSdf  m̄, the sample mean of the SDF
+     * @param price    the price p every payoff has (0 for excess returns, 1 for gross returns)
      */
-    static List<double[]> realisedAndImplied(RunSpec spec, PreparedRun prepared, GmmFit fit) {
+    record MeanPayoffs(double[] realised, double[] implied, double meanSdf, double price) {
+        /** "excess return" or "gross return", for labels. */
+        String payoff() {
+            return price == 0.0 ? "excess return" : "gross return";
+        }
+    }
+
+    /**
+     * Realised and model-implied mean payoffs per asset; null where they are not defined.
+     *
+     * <p>Each moment is g_i = (1/T) Σ_t m_t x_{t,i} - p, with x the payoff the moment prices and p its
+     * price (0 for excess returns, 1 for gross returns). In expected-return units the pricing error is
+     * α_i = g_i / m̄, m̄ = (1/T) Σ_t m_t, and the model-implied mean is x̄_i - α_i = (p - Cov_T(m, x_i)) / m̄.
+     *
+     * <p>m_t and p come from the moments themselves, so no family needs its own formula here: at each
+     * date f_{t,i} = m_t x_{t,i} - p holds exactly across the assets, so the cross-sectional regression
+     * of f_{t,·} on x_{t,·} with an intercept has slope m_t and intercept -p. Null when the moments do
+     * not have that form: scaled by instruments (several moments per asset), one asset only, payoffs
+     * equal across assets at some date, or a regression that does not fit exactly.
+     */
+    static MeanPayoffs realisedAndImplied(PreparedRun prepared, GmmFit fit) {
         MomentModel moments = prepared.moments();
-        if (!moments.momentNames().equals(prepared.assets())) {
+        if (!moments.momentNames().equals(prepared.assets()) || prepared.assets().size() < 2) {
             return null;
         }
-        double price = spec.model().family() == RunSpec.Family.POWER_UTILITY ? 1.0 : 0.0;
         DMatrixRMaj f = moments.contributions(fit.estimates());
         DMatrixRMaj x = moments.payoffs();
         int t = f.numRows;
         int n = f.numCols;
-        double meanSdf = 0.0;
+        double sdfSum = 0.0;
+        double priceSum = 0.0;
         for (int row = 0; row < t; row++) {
+            double xMean = 0.0;
+            double fMean = 0.0;
+            for (int i = 0; i < n; i++) {
+                xMean += x.get(row, i) / n;
+                fMean += f.get(row, i) / n;
+            }
             double cross = 0.0;
             double squares = 0.0;
             for (int i = 0; i < n; i++) {
-                cross += (f.get(row, i) + price) * x.get(row, i);
-                squares += x.get(row, i) * x.get(row, i);
+                cross += (x.get(row, i) - xMean) * (f.get(row, i) - fMean);
+                squares += (x.get(row, i) - xMean) * (x.get(row, i) - xMean);
             }
-            meanSdf += cross / squares;
+            if (!(squares > 0.0)) {
+                return null;
+            }
+            double sdf = cross / squares;
+            double price = sdf * xMean - fMean;
+            for (int i = 0; i < n; i++) {
+                double residual = f.get(row, i) - (sdf * x.get(row, i) - price);
+                if (Math.abs(residual) > 1e-9 * (1.0 + Math.abs(f.get(row, i)) + Math.abs(price))) {
+                    return null;
+                }
+            }
+            sdfSum += sdf;
+            priceSum += price;
         }
-        meanSdf /= t;
+        double meanSdf = sdfSum / t;
+        // Every family prices excess returns at 0 or gross returns at 1; rounding removes the last-digit noise.
+        double price = Math.rint(priceSum / t);
         DMatrixRMaj means = MomentAlgebra.columnMeans(x);
         double[] realised = new double[n];
         double[] implied = new double[n];
@@ -191,6 +222,6 @@ public final class FitReport {
             realised[i] = means.get(i, 0);
             implied[i] = realised[i] - fit.pricingErrors().get(i).error() / meanSdf;
         }
-        return List.of(realised, implied, new double[] {meanSdf});
+        return new MeanPayoffs(realised, implied, meanSdf, price);
     }
 }
