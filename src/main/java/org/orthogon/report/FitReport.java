@@ -71,9 +71,9 @@ public final class FitReport {
         }
         ChiSquareTest over = fit.overidentification();
         return table.note("Standard errors in parentheses; p-values two-sided against zero, normal approximation.")
-                .note(String.format(Locale.ROOT, "%s = %s with %d degrees of freedom, p-value %s.", testName(over),
+                .note(String.format(Locale.ROOT, "%s: statistic %s, %d degrees of freedom, p-value %s.", testName(over),
                         ConsoleReport.fixed(over.statistic(), 3), over.df(), ConsoleReport.fixed(over.pValue(), 4)))
-                .note(String.format(Locale.ROOT, "%s GMM, T = %d.", fit.method().id(), fit.observations()))
+                .note(String.format(Locale.ROOT, "Method: %s GMM, T = %d.", fit.method().id(), fit.observations()))
                 .build();
     }
 
@@ -96,7 +96,7 @@ public final class FitReport {
     private static String testName(ChiSquareTest test) {
         return switch (test.kind()) {
             case "hansen-j" -> "Hansen J";
-            case "pricing-errors-joint" -> "all pricing errors zero";
+            case "pricing-errors-joint" -> "Joint test that all pricing errors are zero";
             default -> test.kind();
         };
     }
