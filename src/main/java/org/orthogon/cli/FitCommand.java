@@ -2,13 +2,19 @@ package org.orthogon.cli;
 
 import java.io.PrintWriter;
 import java.nio.file.Path;
+import java.time.Instant;
 import java.util.List;
+import java.util.Map;
 import java.util.concurrent.Callable;
 import org.orthogon.analysis.SensitivityGrid;
 import org.orthogon.gmm.GmmEstimator;
 import org.orthogon.gmm.GmmFit;
 import org.orthogon.gmm.GmmOptions;
+import org.orthogon.report.CheckReport;
 import org.orthogon.report.ConsoleReport;
+import org.orthogon.report.FitReport;
+import org.orthogon.report.Manifest;
+import org.orthogon.report.OutputFolder;
 import org.orthogon.report.JsonResults;
 import org.orthogon.report.SensitivityReport;
 import org.orthogon.spec.ModelAssembler;
@@ -36,6 +42,14 @@ final class FitCommand implements Callable<Integer> {
     @Option(names = "--json", paramLabel = "FILE", description = "also write the results as JSON to FILE")
     Path json;
 
+    @Option(names = "--out", paramLabel = "DIR", arity = "0..1", fallbackValue = "",
+            description = "also write the output folder (results.json, tables, charts, report.html, manifest.json) "
+                    + "to DIR; --out alone writes out/<model-file-name>/")
+    Path out;
+
+    @Option(names = "--overwrite", description = "let --out replace a folder that already holds a report")
+    boolean overwrite;
+
     @Option(names = "--sensitivity", description = "also refit under every kernel and bandwidth choice of the "
             + "sensitivity grid (HC; Bartlett, Parzen, Tukey-Hanning lags 0-12; QS b = 1-13; Andrews and Newey-West "
             + "rules; with and without prewhitening) and flag verdicts that differ at 5%%")
@@ -52,6 +66,11 @@ final class FitCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
+        Instant started = Instant.now();
+        if (out != null) {
+            // Refuse an unusable folder before the estimation, not after it.
+            OutputFolder.check(OutputFiles.folderOrDefault(out, modelFile), overwrite);
+        }
         RunSpec spec = overrides.apply(ModelFile.read(modelFile));
         PreparedRun prepared = ModelAssembler.prepare(spec);
         GmmFit fit = GmmEstimator.estimate(prepared.moments(), prepared.startValues(),
@@ -60,18 +79,27 @@ final class FitCommand implements Callable<Integer> {
                 ? SensitivityGrid.run(prepared.moments(), prepared.startValues(), fit, spec.estimation().centered(),
                         choice -> new GmmOptions(spec.estimation().method(), choice))
                 : List.of();
+        ObjectNode results = JsonResults.fit(spec, prepared.sample(), fit);
+        if (sensitivity) {
+            SensitivityReport.addTo(results, grid, prepared.moments().parameterNames());
+        }
         if (json != null) {
-            ObjectNode results = JsonResults.fit(spec, prepared.sample(), fit);
-            if (sensitivity) {
-                SensitivityReport.addTo(results, grid, prepared.moments().parameterNames());
-            }
             OutputFiles.writeAtomically(json, JsonResults.text(results));
+        }
+        Path folder = null;
+        if (out != null) {
+            folder = FitReport.writeFolder(OutputFiles.folderOrDefault(out, modelFile), overwrite, results, spec, prepared, fit,
+                    new Manifest.Run("fit", commandSpec.commandLine().getParseResult().originalArgs(),
+                            Version.current(), started, Map.of()));
         }
         if (!quiet) {
             PrintWriter out = commandSpec.commandLine().getOut();
             out.print(ConsoleReport.render(spec, prepared.sample(), fit, prepared.notes()));
             if (sensitivity) {
                 out.print("\n" + SensitivityReport.render(grid, prepared.moments().parameterNames()));
+            }
+            if (folder != null) {
+                out.println("\nReport folder: " + CheckReport.display(folder));
             }
             out.flush();
         }

@@ -61,7 +61,7 @@ public final class ConsoleReport {
         return out.toString();
     }
 
-    private static String describeLongRun(GmmFit fit) {
+    static String describeLongRun(GmmFit fit) {
         var lr = fit.longRun();
         String centering = lr.centered() ? "centered" : "uncentered";
         if (lr.kernel() == Kernel.NONE) {

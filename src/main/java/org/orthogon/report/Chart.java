@@ -1,0 +1,108 @@
+package org.orthogon.report;
+
+import java.util.List;
+
+/**
+ * What a chart shows, independent of how it is drawn ({@link ChartRenderer} draws PNG and SVG).
+ * Every kind has an id (the file name of its images), a title and axis labels.
+ */
+public sealed interface Chart {
+    /** The multiple of the standard error that error bars and bands span on each side (a 95% normal interval). */
+    double BAND = 1.96;
+
+    /** File-name-safe identifier. */
+    String id();
+
+    /** The title drawn above the plot. */
+    String title();
+
+    /** Label of the horizontal axis. */
+    String xLabel();
+
+    /** Label of the vertical axis. */
+    String yLabel();
+
+    /** A labelled point of a scatter chart. */
+    record Point(String label, double x, double y) {
+    }
+
+    /**
+     * Realised against model-implied values, one labelled point per asset, with the 45-degree line on
+     * which a model that prices every asset exactly would put every point.
+     */
+    record Scatter(String id, String title, String xLabel, String yLabel, List<Point> points) implements Chart {
+        public Scatter {
+            checkId(id);
+            points = List.copyOf(points);
+        }
+    }
+
+    /** One estimate with its standard error, for error-bar charts. */
+    record Estimate(String label, double value, double stdError) {
+    }
+
+    /** One point per item (asset) with a bar of ±{@link #BAND} standard errors around it and a zero line. */
+    record ErrorBars(String id, String title, String xLabel, String yLabel, List<Estimate> estimates)
+            implements Chart {
+        public ErrorBars {
+            checkId(id);
+            estimates = List.copyOf(estimates);
+        }
+    }
+
+    /**
+     * A path over dates: values and standard errors at each date; drawn as a line with a shaded band
+     * of ±{@link #BAND} standard errors (a missing standard error leaves a gap in the band).
+     */
+    record Path(String name, List<Double> values, List<Double> stdErrors) {
+        public Path {
+            values = List.copyOf(values);
+            stdErrors = List.copyOf(stdErrors);
+            if (values.size() != stdErrors.size()) {
+                throw new IllegalArgumentException("path " + name + ": " + values.size() + " values but "
+                        + stdErrors.size() + " standard errors");
+            }
+        }
+    }
+
+    /**
+     * Paths with bands over dates, e.g. rolling-window parameter estimates. Dates are period labels
+     * (YYYY-MM, YYYYQn, YYYY or YYYY-MM-DD), one per position of every path.
+     */
+    record Bands(String id, String title, String xLabel, String yLabel, List<String> dates, List<Path> paths)
+            implements Chart {
+        public Bands {
+            checkId(id);
+            dates = List.copyOf(dates);
+            paths = List.copyOf(paths);
+            for (Path path : paths) {
+                if (path.values().size() != dates.size()) {
+                    throw new IllegalArgumentException("path " + path.name() + " has " + path.values().size()
+                            + " values for " + dates.size() + " dates");
+                }
+            }
+        }
+    }
+
+    /**
+     * A statistic over dates with a horizontal critical-value line, e.g. the Wald statistic at each
+     * candidate break date against the critical value of its supremum.
+     */
+    record Sequence(String id, String title, String xLabel, String yLabel, List<String> dates, List<Double> values,
+            double criticalValue, String criticalLabel) implements Chart {
+        public Sequence {
+            checkId(id);
+            dates = List.copyOf(dates);
+            values = List.copyOf(values);
+            if (dates.size() != values.size()) {
+                throw new IllegalArgumentException(values.size() + " values for " + dates.size() + " dates");
+            }
+        }
+    }
+
+    private static void checkId(String id) {
+        if (!id.matches("[a-z0-9]+(-[a-z0-9]+)*")) {
+            throw new IllegalArgumentException("chart id \"" + id + "\" must be lower-case words joined by hyphens");
+        }
+    }
+}

@@ -1,0 +1,227 @@
+package org.orthogon.report;
+
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import org.ejml.data.DMatrixRMaj;
+import org.orthogon.gmm.ChiSquareTest;
+import org.orthogon.gmm.GmmFit;
+import org.orthogon.gmm.ParameterEstimate;
+import org.orthogon.gmm.PricingError;
+import org.orthogon.moments.MomentAlgebra;
+import org.orthogon.moments.MomentModel;
+import org.orthogon.spec.PreparedRun;
+import org.orthogon.spec.RunSpec;
+import tools.jackson.databind.node.ObjectNode;
+
+/**
+ * The report of one {@code fit}: parameter, overidentification and pricing-error tables, the
+ * pricing-error chart and, without instruments, realised against model-implied mean returns;
+ * and the output folder that holds them (docs/output.md describes every file).
+ */
+public final class FitReport {
+    private FitReport() {
+    }
+
+    /** The document of one fit. */
+    public static Report build(RunSpec spec, PreparedRun prepared, GmmFit fit) {
+        var sample = prepared.sample();
+        Report.Builder report = Report.builder(spec.title())
+                .subtitle(String.format(Locale.ROOT, "%s SDF, %s GMM; %s sample %s to %s, T = %d",
+                        spec.model().family().id(), fit.method().id(), sample.frequency(), sample.start(),
+                        sample.end(), sample.observations()))
+                .subtitle(String.format(Locale.ROOT, "N = %d test assets, K = %d moments, P = %d parameters",
+                        prepared.assets().size(), fit.momentCount(), fit.parameters().size()))
+                .subtitle("Long-run covariance: " + ConsoleReport.describeLongRun(fit));
+        report.section("Parameters").table(parameters(fit));
+        report.section("Overidentifying restrictions").table(overidentification(fit));
+        MeanPayoffs means = realisedAndImplied(prepared, fit);
+        report.section("Pricing errors").table(pricingErrors(fit, means)).chart(errorChart(fit));
+        if (means != null) {
+            report.chart(scatter(prepared.assets(), means));
+        }
+        if (!prepared.notes().isEmpty()) {
+            report.section("Data preparation");
+            prepared.notes().forEach(report::paragraph);
+        }
+        return report.warnings(fit.warnings()).build();
+    }
+
+    /**
+     * Writes the output folder of one fit: {@code results.json} (exactly what {@code --json} writes),
+     * the tables, charts and HTML report, and {@code manifest.json} last. Nothing is visible under
+     * {@code target} until every file is complete.
+     *
+     * @return the folder written
+     */
+    public static Path writeFolder(Path target, boolean overwrite, ObjectNode results, RunSpec spec,
+            PreparedRun prepared, GmmFit fit, Manifest.Run run) {
+        return ReportFiles.publish(target, overwrite, build(spec, prepared, fit), results, run, List.of(spec),
+                List.of(prepared.inputs()));
+    }
+
+    /** The parameter table, standard errors under the estimates. */
+    public static Table parameters(GmmFit fit) {
+        Table.Builder table = Table.builder("parameters", "Parameter estimates", "parameter", "estimate",
+                "std. error", "t-stat", "p-value").errorUnder("estimate", "std. error");
+        for (ParameterEstimate p : fit.parameters()) {
+            table.row(Cell.text(p.name()), Cell.number(p.estimate()), Cell.number(p.stdError()),
+                    Cell.fixed(p.tStat(), 2), Cell.fixed(p.pValue(), 4));
+        }
+        ChiSquareTest over = fit.overidentification();
+        return table.note("Standard errors in parentheses; p-values two-sided against zero, normal approximation.")
+                .note(String.format(Locale.ROOT, "%s: statistic %s, %d degrees of freedom, p-value %s.", testName(over),
+                        ConsoleReport.fixed(over.statistic(), 3), over.df(), ConsoleReport.fixed(over.pValue(), 4)))
+                .note(String.format(Locale.ROOT, "Method: %s GMM, T = %d.", fit.method().id(), fit.observations()))
+                .build();
+    }
+
+    /** The overidentification test and the joint test of the pricing errors. */
+    public static Table overidentification(GmmFit fit) {
+        Table.Builder table = Table.builder("overidentification", "Tests of the overidentifying restrictions",
+                "test", "statistic", "df", "p-value");
+        ChiSquareTest over = fit.overidentification();
+        ChiSquareTest joint = fit.pricingErrorsJoint();
+        table.row(Cell.text(testName(over)), Cell.fixed(over.statistic(), 3), Cell.count(over.df()),
+                Cell.fixed(over.pValue(), 4));
+        if (!joint.kind().equals(over.kind())) {
+            table.row(Cell.text(testName(joint)), Cell.fixed(joint.statistic(), 3), Cell.count(joint.df()),
+                    Cell.fixed(joint.pValue(), 4));
+        }
+        return table.note("p-values from the chi-square distribution with K - P degrees of freedom, a large-sample "
+                + "approximation.").build();
+    }
+
+    private static String testName(ChiSquareTest test) {
+        return switch (test.kind()) {
+            case "hansen-j" -> "Hansen J";
+            case "pricing-errors-joint" -> "Joint test that all pricing errors are zero";
+            default -> test.kind();
+        };
+    }
+
+    /** One row per moment; with realised and model-implied means when {@code means} is not null. */
+    static Table pricingErrors(GmmFit fit, MeanPayoffs means) {
+        List<String> header = new ArrayList<>(List.of("moment", "error", "std. error", "t-stat"));
+        if (means != null) {
+            header.addAll(List.of("realised mean", "model-implied mean"));
+        }
+        Table.Builder table = Table.builder("pricing-errors", "Pricing errors at the estimate", header);
+        for (int i = 0; i < fit.pricingErrors().size(); i++) {
+            PricingError e = fit.pricingErrors().get(i);
+            // Fixed decimals: the column compares returns of one scale, which exponents would hide.
+            List<Cell> row = new ArrayList<>(List.of(Cell.text(e.asset()), Cell.fixed(e.error(), 6),
+                    Cell.fixed(e.stdError(), 6), Cell.fixed(e.tStat(), 2)));
+            if (means != null) {
+                row.add(Cell.fixed(means.realised()[i], 6));
+                row.add(Cell.fixed(means.implied()[i], 6));
+            }
+            table.row(row);
+        }
+        ChiSquareTest joint = fit.pricingErrorsJoint();
+        table.note("Error: the sample mean of the moment at the estimate (g_T), in decimals per period.");
+        if (means != null) {
+            table.note(String.format(Locale.ROOT, "Realised mean: sample mean %s. Model-implied mean: realised "
+                    + "minus error / mean SDF, with mean SDF %s.", means.payoff(), ConsoleReport.fixed(means.meanSdf(), 6)));
+        }
+        return table.note(String.format(Locale.ROOT, "All errors zero: chi-square %s, %d degrees of freedom, "
+                + "p-value %s.", ConsoleReport.fixed(joint.statistic(), 3), joint.df(),
+                ConsoleReport.fixed(joint.pValue(), 4))).build();
+    }
+
+    private static Chart errorChart(GmmFit fit) {
+        return new Chart.ErrorBars("pricing-errors", "Pricing errors with 95% bands (±1.96 standard errors)",
+                "moment", "pricing error", fit.pricingErrors().stream()
+                        .map(e -> new Chart.Estimate(e.asset(), e.error(), e.stdError())).toList());
+    }
+
+    private static Chart scatter(List<String> assets, MeanPayoffs means) {
+        String payoff = means.payoff();
+        List<Chart.Point> points = new ArrayList<>();
+        for (int i = 0; i < assets.size(); i++) {
+            points.add(new Chart.Point(assets.get(i), means.implied()[i], means.realised()[i]));
+        }
+        return new Chart.Scatter("realised-vs-implied", "Realised against model-implied mean " + payoff + "s",
+                "model-implied mean " + payoff, "realised mean " + payoff, points);
+    }
+
+    /**
+     * Realised and model-implied mean payoffs of the test assets at the estimate.
+     *
+     * @param realised x̄_i, the sample mean payoff
+     * @param implied  x̄_i - g_i / m̄
+     * @param meanSdf  m̄, the sample mean of the SDF
+     * @param price    the price p every payoff has (0 for excess returns, 1 for gross returns)
+     */
+    record MeanPayoffs(double[] realised, double[] implied, double meanSdf, double price) {
+        /** "excess return" or "gross return", for labels. */
+        String payoff() {
+            return price == 0.0 ? "excess return" : "gross return";
+        }
+    }
+
+    /**
+     * Realised and model-implied mean payoffs per asset; null where they are not defined.
+     *
+     * <p>Each moment is g_i = (1/T) Σ_t m_t x_{t,i} - p, with x the payoff the moment prices and p its
+     * price (0 for excess returns, 1 for gross returns). In expected-return units the pricing error is
+     * α_i = g_i / m̄, m̄ = (1/T) Σ_t m_t, and the model-implied mean is x̄_i - α_i = (p - Cov_T(m, x_i)) / m̄.
+     *
+     * <p>m_t and p come from the moments themselves, so no family needs its own formula here: at each
+     * date f_{t,i} = m_t x_{t,i} - p holds exactly across the assets, so the cross-sectional regression
+     * of f_{t,·} on x_{t,·} with an intercept has slope m_t and intercept -p. Null when the moments do
+     * not have that form: scaled by instruments (several moments per asset), one asset only, payoffs
+     * equal across assets at some date, or a regression that does not fit exactly.
+     */
+    static MeanPayoffs realisedAndImplied(PreparedRun prepared, GmmFit fit) {
+        MomentModel moments = prepared.moments();
+        if (!moments.momentNames().equals(prepared.assets()) || prepared.assets().size() < 2) {
+            return null;
+        }
+        DMatrixRMaj f = moments.contributions(fit.estimates());
+        DMatrixRMaj x = moments.payoffs();
+        int t = f.numRows;
+        int n = f.numCols;
+        double sdfSum = 0.0;
+        double priceSum = 0.0;
+        for (int row = 0; row < t; row++) {
+            double xMean = 0.0;
+            double fMean = 0.0;
+            for (int i = 0; i < n; i++) {
+                xMean += x.get(row, i) / n;
+                fMean += f.get(row, i) / n;
+            }
+            double cross = 0.0;
+            double squares = 0.0;
+            for (int i = 0; i < n; i++) {
+                cross += (x.get(row, i) - xMean) * (f.get(row, i) - fMean);
+                squares += (x.get(row, i) - xMean) * (x.get(row, i) - xMean);
+            }
+            if (!(squares > 0.0)) {
+                return null;
+            }
+            double sdf = cross / squares;
+            double price = sdf * xMean - fMean;
+            for (int i = 0; i < n; i++) {
+                double residual = f.get(row, i) - (sdf * x.get(row, i) - price);
+                if (Math.abs(residual) > 1e-9 * (1.0 + Math.abs(f.get(row, i)) + Math.abs(price))) {
+                    return null;
+                }
+            }
+            sdfSum += sdf;
+            priceSum += price;
+        }
+        double meanSdf = sdfSum / t;
+        // Every family prices excess returns at 0 or gross returns at 1; rounding removes the last-digit noise.
+        double price = Math.rint(priceSum / t);
+        DMatrixRMaj means = MomentAlgebra.columnMeans(x);
+        double[] realised = new double[n];
+        double[] implied = new double[n];
+        for (int i = 0; i < n; i++) {
+            realised[i] = means.get(i, 0);
+            implied[i] = realised[i] - fit.pricingErrors().get(i).error() / meanSdf;
+        }
+        return new MeanPayoffs(realised, implied, meanSdf, price);
+    }
+}
