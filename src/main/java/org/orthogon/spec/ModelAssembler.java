@@ -133,7 +133,6 @@ public final class ModelAssembler {
             throw missingKey("model", "factor_columns", "the linear-factor family needs factors",
                     "add factor_columns = [\"MKT\"] under [model], naming columns of the factors file");
         }
-        SeriesTable factors = readFactors(factorColumns);
         String form = spec.model().form();
         SeriesTable assets;
         double[] riskfreeGross = null;
@@ -150,6 +149,7 @@ public final class ModelAssembler {
         } else {
             assets = excessReturns("the linear-factor family (form \"" + form + "\") prices excess returns");
         }
+        SeriesTable factors = readFactors(factorColumns);
         Aligned aligned = align(assets, List.of(factors));
         double[][] factorRows = transpose(aligned.otherColumns(0));
         List<String> factorNames = factorColumns;
