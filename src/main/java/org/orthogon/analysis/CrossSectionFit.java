@@ -23,9 +23,10 @@ import org.orthogon.moments.MomentAlgebra;
  * @param r2            1 - Var_c(α)/Var_c(x̄)
  * @param meanAbsolute  mean |α_i|
  * @param rootMeanSquare sqrt(mean α_i²)
+ * @param meanSdf       E_T[m], the sample mean of the discount factor at the estimate
  */
 public record CrossSectionFit(List<String> assets, double[] realised, double[] implied, double[] errors, double r2,
-        double meanAbsolute, double rootMeanSquare) {
+        double meanAbsolute, double rootMeanSquare, double meanSdf) {
 
     public CrossSectionFit {
         assets = List.copyOf(assets);
@@ -55,7 +56,7 @@ public record CrossSectionFit(List<String> assets, double[] realised, double[] i
         }
         double r2 = 1.0 - crossSectionalVariance(alpha) / crossSectionalVariance(realised);
         return new CrossSectionFit(new ArrayList<>(model.momentNames().subList(0, k)), realised, implied, alpha, r2, absolute / k,
-                Math.sqrt(squares / k));
+                Math.sqrt(squares / k), meanSdf);
     }
 
     private static double crossSectionalVariance(double[] values) {

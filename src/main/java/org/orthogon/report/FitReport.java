@@ -4,13 +4,11 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
-import org.ejml.data.DMatrixRMaj;
 import org.orthogon.gmm.ChiSquareTest;
 import org.orthogon.gmm.GmmFit;
 import org.orthogon.gmm.ParameterEstimate;
 import org.orthogon.gmm.PricingError;
-import org.orthogon.moments.MomentAlgebra;
-import org.orthogon.moments.MomentModel;
+import org.orthogon.analysis.CrossSectionFit;
 import org.orthogon.spec.PreparedRun;
 import org.orthogon.spec.RunSpec;
 import tools.jackson.databind.node.ObjectNode;
@@ -36,7 +34,7 @@ public final class FitReport {
                 .subtitle("Long-run covariance: " + ConsoleReport.describeLongRun(fit));
         report.section("Parameters").table(parameters(fit));
         report.section("Overidentifying restrictions").table(overidentification(fit));
-        MeanPayoffs means = realisedAndImplied(prepared, fit);
+        MeanPayoffs means = realisedAndImplied(spec, prepared, fit);
         report.section("Pricing errors").table(pricingErrors(fit, means)).chart(errorChart(fit));
         if (means != null) {
             report.chart(scatter(prepared.assets(), means));
@@ -110,12 +108,13 @@ public final class FitReport {
         Table.Builder table = Table.builder("pricing-errors", "Pricing errors at the estimate", header);
         for (int i = 0; i < fit.pricingErrors().size(); i++) {
             PricingError e = fit.pricingErrors().get(i);
+            boolean priced = means != null && i < means.realised().length;
             // Fixed decimals: the column compares returns of one scale, which exponents would hide.
             List<Cell> row = new ArrayList<>(List.of(Cell.text(e.asset()), Cell.fixed(e.error(), 6),
                     Cell.fixed(e.stdError(), 6), Cell.fixed(e.tStat(), 2)));
             if (means != null) {
-                row.add(Cell.fixed(means.realised()[i], 6));
-                row.add(Cell.fixed(means.implied()[i], 6));
+                row.add(priced ? Cell.fixed(means.realised()[i], 6) : Cell.text(""));
+                row.add(priced ? Cell.fixed(means.implied()[i], 6) : Cell.text(""));
             }
             table.row(row);
         }
@@ -123,7 +122,8 @@ public final class FitReport {
         table.note("Error: the sample mean of the moment at the estimate (g_T), in decimals per period.");
         if (means != null) {
             table.note(String.format(Locale.ROOT, "Realised mean: sample mean %s. Model-implied mean: realised "
-                    + "minus error / mean SDF, with mean SDF %s.", means.payoff(), ConsoleReport.fixed(means.meanSdf(), 6)));
+                    + "minus error / mean SDF, with mean SDF %s.", means.payoff(),
+                    ConsoleReport.fixed(means.fit().meanSdf(), 6)));
         }
         return table.note(String.format(Locale.ROOT, "All errors zero: chi-square %s, %d degrees of freedom, "
                 + "p-value %s.", ConsoleReport.fixed(joint.statistic(), 3), joint.df(),
@@ -149,79 +149,37 @@ public final class FitReport {
     /**
      * Realised and model-implied mean payoffs of the test assets at the estimate.
      *
-     * @param realised x̄_i, the sample mean payoff
-     * @param implied  x̄_i - g_i / m̄
-     * @param meanSdf  m̄, the sample mean of the SDF
-     * @param price    the price p every payoff has (0 for excess returns, 1 for gross returns)
+     * @param fit    the cross-sectional fit: realised x̄_i, implied x̄_i - g_i / m̄
+     * @param payoff "excess return" or "gross return", for labels
      */
-    record MeanPayoffs(double[] realised, double[] implied, double meanSdf, double price) {
-        /** "excess return" or "gross return", for labels. */
-        String payoff() {
-            return price == 0.0 ? "excess return" : "gross return";
+    record MeanPayoffs(CrossSectionFit fit, String payoff) {
+        double[] realised() {
+            return fit.realised();
+        }
+
+        double[] implied() {
+            return fit.implied();
         }
     }
 
     /**
-     * Realised and model-implied mean payoffs per asset; null where they are not defined.
-     *
-     * <p>Each moment is g_i = (1/T) Σ_t m_t x_{t,i} - p, with x the payoff the moment prices and p its
-     * price (0 for excess returns, 1 for gross returns). In expected-return units the pricing error is
-     * α_i = g_i / m̄, m̄ = (1/T) Σ_t m_t, and the model-implied mean is x̄_i - α_i = (p - Cov_T(m, x_i)) / m̄.
-     *
-     * <p>m_t and p come from the moments themselves, so no family needs its own formula here: at each
-     * date f_{t,i} = m_t x_{t,i} - p holds exactly across the assets, so the cross-sectional regression
-     * of f_{t,·} on x_{t,·} with an intercept has slope m_t and intercept -p. Null when the moments do
-     * not have that form: scaled by instruments (several moments per asset), one asset only, payoffs
-     * equal across assets at some date, or a regression that does not fit exactly.
+     * Realised and model-implied mean payoffs per asset (see {@link CrossSectionFit}); null where they
+     * are not defined: moments scaled by instruments (several moments per asset) or a single asset.
      */
-    static MeanPayoffs realisedAndImplied(PreparedRun prepared, GmmFit fit) {
-        MomentModel moments = prepared.moments();
-        if (!moments.momentNames().equals(prepared.assets()) || prepared.assets().size() < 2) {
+    static MeanPayoffs realisedAndImplied(RunSpec spec, PreparedRun prepared, GmmFit fit) {
+        if (!spec.model().instrumentColumns().isEmpty() || prepared.assets().size() < 2) {
             return null;
         }
-        DMatrixRMaj f = moments.contributions(fit.estimates());
-        DMatrixRMaj x = moments.payoffs();
-        int t = f.numRows;
-        int n = f.numCols;
-        double sdfSum = 0.0;
-        double priceSum = 0.0;
-        for (int row = 0; row < t; row++) {
-            double xMean = 0.0;
-            double fMean = 0.0;
-            for (int i = 0; i < n; i++) {
-                xMean += x.get(row, i) / n;
-                fMean += f.get(row, i) / n;
-            }
-            double cross = 0.0;
-            double squares = 0.0;
-            for (int i = 0; i < n; i++) {
-                cross += (x.get(row, i) - xMean) * (f.get(row, i) - fMean);
-                squares += (x.get(row, i) - xMean) * (x.get(row, i) - xMean);
-            }
-            if (!(squares > 0.0)) {
-                return null;
-            }
-            double sdf = cross / squares;
-            double price = sdf * xMean - fMean;
-            for (int i = 0; i < n; i++) {
-                double residual = f.get(row, i) - (sdf * x.get(row, i) - price);
-                if (Math.abs(residual) > 1e-9 * (1.0 + Math.abs(f.get(row, i)) + Math.abs(price))) {
-                    return null;
-                }
-            }
-            sdfSum += sdf;
-            priceSum += price;
-        }
-        double meanSdf = sdfSum / t;
-        // Every family prices excess returns at 0 or gross returns at 1; rounding removes the last-digit noise.
-        double price = Math.rint(priceSum / t);
-        DMatrixRMaj means = MomentAlgebra.columnMeans(x);
-        double[] realised = new double[n];
-        double[] implied = new double[n];
-        for (int i = 0; i < n; i++) {
-            realised[i] = means.get(i, 0);
-            implied[i] = realised[i] - fit.pricingErrors().get(i).error() / meanSdf;
-        }
-        return new MeanPayoffs(realised, implied, meanSdf, price);
+        return new MeanPayoffs(CrossSectionFit.of(prepared.moments(), fit.estimates()), payoffLabel(spec));
+    }
+
+    /** What the moments price: gross returns (E[m R] = 1) or excess returns (E[m R^e] = 0). */
+    static String payoffLabel(RunSpec spec) {
+        boolean gross = switch (spec.model().family()) {
+            case POWER_UTILITY, RECURSIVE_UTILITY -> true;
+            case LINEAR_FACTOR -> spec.model().form().equals("gross");
+            case EXPRESSION -> spec.model().payoff().equals("gross");
+        };
+        return gross ? "gross return" : "excess return";
     }
 }

@@ -507,7 +507,8 @@ public final class ModelAssembler {
         SampleInfo sample = new SampleInfo(dates.get(aligned.first()).label(), dates.get(aligned.last()).label(),
                 observations, dates.get(0).frequency().id());
         List<String> labels = dates.subList(aligned.first(), aligned.last() + 1).stream().map(Period::label).toList();
-        return new PreparedRun(moments, start, sample, notes, inputs, errors.assetNames(), labels);
+        return new PreparedRun(moments, start, sample, notes, inputs,
+                errors.assetNames().subList(0, errors.pricedAssets()), labels);
     }
 
     /**
