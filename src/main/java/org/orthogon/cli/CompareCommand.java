@@ -1,12 +1,18 @@
 package org.orthogon.cli;
 
 import java.nio.file.Path;
+import java.time.Instant;
+import java.util.Map;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
 import org.orthogon.analysis.ModelComparison;
 import org.orthogon.data.InputException;
+import org.orthogon.report.CheckReport;
+import org.orthogon.report.ComparisonDocument;
 import org.orthogon.report.ComparisonReport;
+import org.orthogon.report.Manifest;
+import org.orthogon.report.ReportFiles;
 import org.orthogon.report.JsonResults;
 import org.orthogon.spec.FittedRun;
 import org.orthogon.spec.ModelFile;
@@ -33,6 +39,9 @@ final class CompareCommand implements Callable<Integer> {
     @Option(names = "--json", paramLabel = "FILE", description = "also write the comparison as JSON to FILE")
     Path json;
 
+    @Mixin
+    OutputFolderOptions output;
+
     @Option(names = "--quiet", description = "print nothing on success")
     boolean quiet;
 
@@ -44,6 +53,10 @@ final class CompareCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
+        Instant started = Instant.now();
+        String folderName = "compare-" + modelFiles.stream().map(OutputFolderOptions::stem)
+                .collect(java.util.stream.Collectors.joining("-"));
+        output.checkEarly(folderName);
         List<FittedRun> runs = new ArrayList<>();
         for (Path file : modelFiles) {
             RunSpec spec = overrides.apply(ModelFile.read(file));
@@ -59,13 +72,25 @@ final class CompareCommand implements Callable<Integer> {
         var sample = runs.get(0).prepared().sample();
         String sampleLine = sample.frequency() + " " + sample.start() + " to " + sample.end() + " (T = "
                 + sample.observations() + ")";
+        List<ObjectNode> fits = runs.stream()
+                .map(run -> JsonResults.fit(run.spec(), run.prepared().sample(), run.fit())).toList();
+        ObjectNode results = ComparisonReport.json(result, fits);
         if (json != null) {
-            List<ObjectNode> fits = runs.stream()
-                    .map(run -> JsonResults.fit(run.spec(), run.prepared().sample(), run.fit())).toList();
-            OutputFiles.writeAtomically(json, JsonResults.text(ComparisonReport.json(result, fits)));
+            OutputFiles.writeAtomically(json, JsonResults.text(results));
+        }
+        Path folder = null;
+        if (output.requested()) {
+            folder = ReportFiles.publish(output.target(folderName), output.overwrite,
+                    ComparisonDocument.build(result, sampleLine), results,
+                    new Manifest.Run("compare", commandSpec.commandLine().getParseResult().originalArgs(),
+                            Version.current(), started, Map.of()),
+                    runs.stream().map(FittedRun::spec).toList(), runs.stream().map(run -> run.prepared().inputs()).toList());
         }
         if (!quiet) {
             commandSpec.commandLine().getOut().print(ComparisonReport.render(result, sampleLine));
+            if (folder != null) {
+                commandSpec.commandLine().getOut().println("\nReport folder: " + CheckReport.display(folder));
+            }
             commandSpec.commandLine().getOut().flush();
         }
         return Main.EXIT_OK;

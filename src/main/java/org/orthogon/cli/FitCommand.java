@@ -7,17 +7,14 @@ import java.util.List;
 import java.util.Map;
 import java.util.concurrent.Callable;
 import org.orthogon.analysis.SensitivityGrid;
-import org.orthogon.gmm.GmmEstimator;
 import org.orthogon.gmm.GmmFit;
-import org.orthogon.gmm.GmmOptions;
 import org.orthogon.report.CheckReport;
 import org.orthogon.report.ConsoleReport;
 import org.orthogon.report.FitReport;
 import org.orthogon.report.Manifest;
-import org.orthogon.report.OutputFolder;
 import org.orthogon.report.JsonResults;
 import org.orthogon.report.SensitivityReport;
-import org.orthogon.spec.ModelAssembler;
+import org.orthogon.spec.FittedRun;
 import org.orthogon.spec.ModelFile;
 import org.orthogon.spec.PreparedRun;
 import org.orthogon.spec.RunSpec;
@@ -42,13 +39,8 @@ final class FitCommand implements Callable<Integer> {
     @Option(names = "--json", paramLabel = "FILE", description = "also write the results as JSON to FILE")
     Path json;
 
-    @Option(names = "--out", paramLabel = "DIR", arity = "0..1", fallbackValue = "",
-            description = "also write the output folder (results.json, tables, charts, report.html, manifest.json) "
-                    + "to DIR; --out alone writes out/<model-file-name>/")
-    Path out;
-
-    @Option(names = "--overwrite", description = "let --out replace a folder that already holds a report")
-    boolean overwrite;
+    @Mixin
+    OutputFolderOptions output;
 
     @Option(names = "--sensitivity", description = "also refit under every kernel and bandwidth choice of the "
             + "sensitivity grid (HC; Bartlett, Parzen, Tukey-Hanning lags 0-12; QS b = 1-13; Andrews and Newey-West "
@@ -67,17 +59,15 @@ final class FitCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         Instant started = Instant.now();
-        if (out != null) {
-            // Refuse an unusable folder before the estimation, not after it.
-            OutputFolder.check(OutputFiles.folderOrDefault(out, modelFile), overwrite);
-        }
+        String folderName = OutputFolderOptions.stem(modelFile);
+        output.checkEarly(folderName);
         RunSpec spec = overrides.apply(ModelFile.read(modelFile));
-        PreparedRun prepared = ModelAssembler.prepare(spec);
-        GmmFit fit = GmmEstimator.estimate(prepared.moments(), prepared.startValues(),
-                new GmmOptions(spec.estimation().method(), spec.estimation().longRunOptions()));
+        FittedRun run = FittedRun.of(spec);
+        PreparedRun prepared = run.prepared();
+        GmmFit fit = run.fit();
         List<SensitivityGrid.SensitivityRow> grid = sensitivity
                 ? SensitivityGrid.run(prepared.moments(), prepared.startValues(), fit, spec.estimation().centered(),
-                        choice -> new GmmOptions(spec.estimation().method(), choice))
+                        choice -> FittedRun.options(spec.withEstimation(spec.estimation().withLongRun(choice))))
                 : List.of();
         ObjectNode results = JsonResults.fit(spec, prepared.sample(), fit);
         if (sensitivity) {
@@ -87,8 +77,8 @@ final class FitCommand implements Callable<Integer> {
             OutputFiles.writeAtomically(json, JsonResults.text(results));
         }
         Path folder = null;
-        if (out != null) {
-            folder = FitReport.writeFolder(OutputFiles.folderOrDefault(out, modelFile), overwrite, results, spec, prepared, fit,
+        if (output.requested()) {
+            folder = FitReport.writeFolder(output.target(folderName), output.overwrite, results, spec, prepared, fit,
                     new Manifest.Run("fit", commandSpec.commandLine().getParseResult().originalArgs(),
                             Version.current(), started, Map.of()));
         }

@@ -47,16 +47,4 @@ final class OutputFiles {
             }
         }
     }
-
-    /**
-     * The output folder a command writes: {@code given}, or when --out came without a value
-     * out/&lt;model file name without .toml&gt;/ below the working folder.
-     */
-    static Path folderOrDefault(Path given, Path modelFile) {
-        if (!given.toString().isEmpty()) {
-            return given;
-        }
-        String name = modelFile.getFileName().toString();
-        return Path.of("out", name.endsWith(".toml") ? name.substring(0, name.length() - 5) : name);
-    }
 }

@@ -1,6 +1,8 @@
 package org.orthogon.cli;
 
 import java.nio.file.Path;
+import java.time.Instant;
+import java.util.Map;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -17,7 +19,11 @@ import org.orthogon.data.InputException;
 import org.orthogon.data.Period;
 import org.orthogon.gmm.EstimationMethod;
 import org.orthogon.gmm.GmmOptions;
+import org.orthogon.report.CheckReport;
 import org.orthogon.report.JsonResults;
+import org.orthogon.report.Manifest;
+import org.orthogon.report.ReportFiles;
+import org.orthogon.report.StabilityDocument;
 import org.orthogon.report.StabilityReport;
 import org.orthogon.spec.FittedRun;
 import org.orthogon.spec.ModelAssembler;
@@ -28,6 +34,7 @@ import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
+import tools.jackson.databind.node.ObjectNode;
 
 /** {@code stability MODEL.toml}: does the model's verdict hold across sample periods? */
 @Command(name = "stability", mixinStandardHelpOptions = true,
@@ -69,6 +76,9 @@ final class StabilityCommand implements Callable<Integer> {
     @Option(names = "--json", paramLabel = "FILE", description = "also write the results as JSON to FILE")
     Path json;
 
+    @Mixin
+    OutputFolderOptions output;
+
     @Option(names = "--quiet", description = "print nothing on success")
     boolean quiet;
 
@@ -80,6 +90,9 @@ final class StabilityCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
+        Instant started = Instant.now();
+        String folderName = OutputFolderOptions.stem(modelFile) + "-stability";
+        output.checkEarly(folderName);
         RunSpec spec = withCommandLine(overrides.apply(ModelFile.read(modelFile)));
         RunSpec.StabilitySpec choices = spec.stability();
         PreparedRun prepared = ModelAssembler.prepare(spec);
@@ -118,11 +131,24 @@ final class StabilityCommand implements Callable<Integer> {
                     periods.isEmpty() ? null : Stability.equalityTest(periods), sup, rolling));
         }
         warnings.addAll(sizeWarnings(prepared, splitIndices, choices));
-        if (json != null) {
-            OutputFiles.writeAtomically(json, JsonResults.text(StabilityReport.json(spec, prepared.sample(), results)));
+        ObjectNode json = StabilityReport.json(spec, prepared.sample(), results);
+        if (this.json != null) {
+            OutputFiles.writeAtomically(this.json, JsonResults.text(json));
+        }
+        Path folder = null;
+        if (output.requested()) {
+            long simulationSeed = seed == null ? SupWaldDistribution.DEFAULT_SEED : seed;
+            folder = ReportFiles.publish(output.target(folderName), output.overwrite,
+                    StabilityDocument.build(spec, prepared.sample(), results, warnings), json,
+                    new Manifest.Run("stability", commandSpec.commandLine().getParseResult().originalArgs(),
+                            Version.current(), started, noSupWald ? Map.of() : Map.of("sup_wald", simulationSeed)),
+                    List.of(spec), List.of(prepared.inputs()));
         }
         if (!quiet) {
             commandSpec.commandLine().getOut().print(StabilityReport.render(spec, prepared.sample(), results, warnings));
+            if (folder != null) {
+                commandSpec.commandLine().getOut().println("\nReport folder: " + CheckReport.display(folder));
+            }
             commandSpec.commandLine().getOut().flush();
         }
         return Main.EXIT_OK;

@@ -83,6 +83,12 @@ public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec mod
             return new LongRunOptions(kernel, bandwidth, centered, prewhiten);
         }
 
+        /** The same choices with another long-run covariance estimator. */
+        public EstimationSpec withLongRun(LongRunOptions options) {
+            return new EstimationSpec(method, initialWeight, options.kernel(), options.bandwidth(), options.prewhiten(),
+                    options.centered());
+        }
+
         /** A human-readable bandwidth choice: "lags 4", "b = 5.0", "andrews", "newey-west". */
         public String bandwidthLabel() {
             if (bandwidth instanceof BandwidthRule.Lags lags) {

@@ -33,6 +33,24 @@ class CompareCommandTest {
     }
 
     @Test
+    void writesAnOutputFolderWithTheComparisonTablesAndCharts() throws IOException {
+        CliHarness cli = new CliHarness(root);
+        Path out = root.resolve("cmp");
+        CliHarness.Result result = cli.run("compare", cli.models.resolve("lumen-three-factor.toml").toString(),
+                cli.models.resolve("lumen-market-only.toml").toString(), "--out", out.toString(), "--quiet");
+        assertThat(result.code()).as(result.err()).isZero();
+        for (String file : new String[] {"results.json", "manifest.json", "report.html", "tables/comparison-parameters.tex",
+            "tables/comparison-tests.csv", "tables/nested-tests.md", "charts/realised-vs-implied-2.svg"}) {
+            assertThat(out.resolve(file)).as(file).exists();
+        }
+        org.jsoup.nodes.Document html = org.jsoup.Jsoup.parse(out.resolve("report.html").toFile());
+        assertThat(html.select("table")).hasSize(3);
+        assertThat(html.select("svg")).hasSize(2);
+        JsonNode manifest = JsonMapper.builder().build().readTree(out.resolve("manifest.json").toFile());
+        assertThat(manifest.get("models")).hasSize(2);
+    }
+
+    @Test
     void refusesModelsOnDifferentAssets() throws IOException {
         CliHarness cli = new CliHarness(root);
         CliHarness.Result result = cli.run("compare", cli.models.resolve("lumen-three-factor.toml").toString(),

@@ -231,9 +231,12 @@ class FitOutputFolderTest {
 
     @Test
     void outWithoutAValueNamesTheFolderAfterTheModelFile() {
-        assertThat(OutputFiles.folderOrDefault(Path.of(""), Path.of("models/lumen-three-factor.toml")))
-                .isEqualTo(Path.of("out", "lumen-three-factor"));
-        assertThat(OutputFiles.folderOrDefault(Path.of("x/y"), Path.of("m.toml"))).isEqualTo(Path.of("x/y"));
+        OutputFolderOptions options = new OutputFolderOptions();
+        options.out = Path.of("");
+        String stem = OutputFolderOptions.stem(Path.of("models/lumen-three-factor.toml"));
+        assertThat(options.target(stem)).isEqualTo(Path.of("out", "lumen-three-factor"));
+        options.out = Path.of("x/y");
+        assertThat(options.target(stem)).isEqualTo(Path.of("x/y"));
     }
 
     private double meanExcess(String column) throws IOException {

@@ -63,6 +63,22 @@ class StabilityCommandTest {
     }
 
     @Test
+    void writesAnOutputFolderWithTheSupWaldSequenceAndRollingPaths() throws IOException {
+        CliHarness cli = new CliHarness(root);
+        Path out = root.resolve("stab");
+        CliHarness.Result result = cli.run("stability", cli.models.resolve("lumen-three-factor.toml").toString(),
+                "--split", "1990-01", "--window", "240", "--step", "120", "--out", out.toString(), "--quiet");
+        assertThat(result.code()).as(result.err()).isZero();
+        for (String file : new String[] {"tables/periods.tex", "tables/periods-fixed-weight.csv", "charts/sup-wald.svg",
+            "charts/rolling.png", "report.html"}) {
+            assertThat(out.resolve(file)).as(file).exists();
+        }
+        JsonNode manifest = JSON.readTree(out.resolve("manifest.json").toFile());
+        assertThat(manifest.at("/seeds/sup_wald").asLong()).isEqualTo(org.orthogon.analysis.SupWaldDistribution.DEFAULT_SEED);
+        assertThat(JSON.readTree(out.resolve("results.json").toFile()).has("sup_wald")).isTrue();
+    }
+
+    @Test
     void aSplitOutsideTheSampleIsRefused() throws IOException {
         CliHarness cli = new CliHarness(root);
         CliHarness.Result result = cli.run("stability", cli.models.resolve("lumen-power-utility.toml").toString(),
