@@ -61,7 +61,7 @@ public record LinearRestrictions(DMatrixRMaj matrix, double[] values, String tex
                         + "\" involves no parameter");
             }
             rows.add(coefficients);
-            rhs.add(-constant);
+            rhs.add(constant == 0.0 ? 0.0 : -constant);
         } while (parser.accept(','));
         parser.end();
         DMatrixRMaj r = new DMatrixRMaj(rows.size(), parameterNames.size());

@@ -5,13 +5,9 @@ import static org.assertj.core.api.Assertions.assertThat;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.orthogon.demo.LumenEconomy;
-import org.orthogon.demo.LumenSimulator;
 import org.orthogon.longrun.BandwidthRule;
 import org.orthogon.longrun.Kernel;
 import org.orthogon.longrun.LongRunOptions;
-import org.orthogon.moments.LinearFactorErrors;
-import org.orthogon.moments.MomentModel;
-import org.orthogon.moments.ScaledMoments;
 
 /**
  * Size of the two-step J test and coverage of the 95% intervals on the simulated Lumen economy, whose
@@ -24,19 +20,6 @@ class LinearSdfMonteCarloTest {
     private static final int REPLICATIONS = 400;
     private static final long FIRST_SEED = 600_000L;
 
-    private static MomentModel sample(LumenEconomy economy, long seed) {
-        var sample = LumenSimulator.simulate(economy, 1962, YEARS, seed);
-        int months = sample.months().size();
-        double[][] excess = new double[months][ASSETS];
-        for (int t = 0; t < months; t++) {
-            for (int i = 0; i < ASSETS; i++) {
-                excess[t][i] = sample.portfolioReturns()[t][i] - sample.riskfree()[t];
-            }
-        }
-        return ScaledMoments.unscaled(new LinearFactorErrors(excess, sample.factors(),
-                economy.portfolioNames().subList(0, ASSETS), economy.factorNames()));
-    }
-
     /** Rejection rate of J at 5% and coverage of each b_k's 95% interval. */
     private static double[] rates(LongRunOptions longRun) {
         LumenEconomy economy = LumenEconomy.standard();
@@ -46,7 +29,7 @@ class LinearSdfMonteCarloTest {
         int rejections = 0;
         int[] covered = new int[truth.length];
         for (int r = 0; r < REPLICATIONS; r++) {
-            GmmFit fit = GmmEstimator.estimate(sample(economy, FIRST_SEED + r), new double[truth.length], options);
+            GmmFit fit = GmmEstimator.estimate(LumenModels.linearSdf(ASSETS, YEARS, FIRST_SEED + r), new double[truth.length], options);
             if (fit.overidentification().pValue() < 0.05) {
                 rejections++;
             }
