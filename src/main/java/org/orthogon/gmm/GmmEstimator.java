@@ -70,14 +70,19 @@ public final class GmmEstimator {
         try {
             return estimateChecked(model, start, options);
         } catch (Matrices.SingularMatrixException e) {
-            throw new EstimationException(e.getMessage(),
-                    List.of("reciprocal condition number " + e.reciprocalCondition, "K = " + k, "P = " + p,
-                            "T = " + t),
-                    e.what.startsWith("D") ? "the parameters are not identified by these moments: "
-                            + "drop a parameter or add moments that move with it"
-                            : "some test assets (or scaled moments) are nearly linear combinations of others: "
-                                    + "drop one of them or use fewer instruments");
+            throw refusal(e, model);
         }
+    }
+
+    /** The estimation failure a singular matrix means, with the sizes and the fix it calls for. */
+    static EstimationException refusal(Matrices.SingularMatrixException e, MomentModel model) {
+        return new EstimationException(e.getMessage(),
+                List.of("reciprocal condition number " + e.reciprocalCondition, "K = " + model.momentCount(),
+                        "P = " + model.parameterCount(), "T = " + model.observations()),
+                e.what.startsWith("D") ? "the parameters are not identified by these moments: "
+                        + "drop a parameter or add moments that move with it"
+                        : "some test assets (or scaled moments) are nearly linear combinations of others: "
+                                + "drop one of them or use fewer instruments");
     }
 
     private static GmmFit estimateChecked(MomentModel model, double[] start, GmmOptions options) {
@@ -243,7 +248,7 @@ public final class GmmEstimator {
         HjDistance hj = null;
         try {
             hj = HansenJagannathan.distance(model, theta, longRunOptions, bounds, options.hjSeed(), options.hjDraws());
-        } catch (Matrices.SingularMatrixException | EstimationException e) {
+        } catch (EstimationException e) {
             warnings.add("the Hansen-Jagannathan distance is not reported: " + e.getMessage());
         }
         GmmDiagnostics diagnostics = new GmmDiagnostics(1.0 / rcondS, 1.0 / rcondDwd, k, t, p, solverIterations,

@@ -31,10 +31,19 @@ public final class HansenJagannathan {
      * @param start      where a non-linear search starts (the main estimate)
      * @param longRun    how S is estimated at the HJ minimiser
      * @param seed,draws the simulation of the weighted chi-square limit
-     * @throws EstimationException when the minimisation over θ does not converge
-     * @throws Matrices.SingularMatrixException when G, S or D'G^{-1}D is singular
+     * @throws EstimationException when the minimisation over θ does not converge or G, S or D'G^{-1}D
+     *                             is singular
      */
     public static HjDistance distance(MomentModel model, double[] start, LongRunOptions longRun,
+            ParameterBounds bounds, long seed, int draws) {
+        try {
+            return distanceChecked(model, start, longRun, bounds, seed, draws);
+        } catch (Matrices.SingularMatrixException e) {
+            throw GmmEstimator.refusal(e, model);
+        }
+    }
+
+    private static HjDistance distanceChecked(MomentModel model, double[] start, LongRunOptions longRun,
             ParameterBounds bounds, long seed, int draws) {
         int k = model.momentCount();
         int p = model.parameterCount();

@@ -85,8 +85,7 @@ public sealed interface InitialWeight {
     /**
      * The K x K weight for this model.
      *
-     * @throws Matrices.SingularMatrixException when G is singular (the estimator turns it into an
-     *                                          {@link EstimationException})
+     * @throws EstimationException when G is singular
      */
     default DMatrixRMaj matrix(MomentModel model) {
         int k = model.momentCount();
@@ -94,7 +93,11 @@ public sealed interface InitialWeight {
             return CommonOps_DDRM.identity(k);
         }
         if (this instanceof SecondMoment) {
-            return Matrices.invertSymmetric(secondMoments(model), "G, the second-moment matrix of the payoffs");
+            try {
+                return Matrices.invertSymmetric(secondMoments(model), "G, the second-moment matrix of the payoffs");
+            } catch (Matrices.SingularMatrixException e) {
+                throw GmmEstimator.refusal(e, model);
+            }
         }
         double[] w = ((Diagonal) this).weights;
         if (w.length != k) {

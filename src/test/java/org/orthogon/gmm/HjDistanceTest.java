@@ -143,6 +143,66 @@ class HjDistanceTest {
         }
     }
 
+    @Test
+    void aSingularSecondMomentMatrixLeavesTheDistanceOutWithAReason() {
+        // A payoff repeated: G is singular, so G^{-1} and δ do not exist; the fit itself still stands.
+        MomentModel base = LumenModels.linearSdf(6, 30, 80L);
+        MomentModel repeated = new ForwardingMomentModel(base) {
+            @Override
+            public java.util.List<String> momentNames() {
+                var names = new java.util.ArrayList<>(base.momentNames());
+                names.add(names.get(0) + "_again");
+                return names;
+            }
+
+            @Override
+            public DMatrixRMaj contributions(double[] theta) {
+                return repeatFirstColumn(base.contributions(theta));
+            }
+
+            @Override
+            public DMatrixRMaj meanJacobian(double[] theta) {
+                return repeatFirstRow(base.meanJacobian(theta));
+            }
+
+            @Override
+            public DMatrixRMaj payoffs() {
+                return repeatFirstColumn(base.payoffs());
+            }
+        };
+        GmmFit fit = GmmEstimator.estimate(repeated, new double[3], new GmmOptions(EstimationMethod.ONE_STEP, HC));
+        assertThat(fit.hjDistance()).isNull();
+        assertThat(fit.hj()).isEmpty();
+        assertThat(fit.warnings()).anyMatch(w -> w.startsWith("the Hansen-Jagannathan distance is not reported")
+                && w.contains("G, the second-moment matrix"));
+        assertThat(fit.warnings()).anyMatch(w -> w.startsWith("S is nearly singular"));
+    }
+
+    private static DMatrixRMaj repeatFirstColumn(DMatrixRMaj m) {
+        DMatrixRMaj out = new DMatrixRMaj(m.numRows, m.numCols + 1);
+        for (int r = 0; r < m.numRows; r++) {
+            for (int c = 0; c < m.numCols; c++) {
+                out.set(r, c, m.get(r, c));
+            }
+            out.set(r, m.numCols, m.get(r, 0));
+        }
+        return out;
+    }
+
+    /** The K x P Jacobian with its first row repeated as a last row. */
+    private static DMatrixRMaj repeatFirstRow(DMatrixRMaj d) {
+        DMatrixRMaj out = new DMatrixRMaj(d.numRows + 1, d.numCols);
+        for (int r = 0; r < d.numRows; r++) {
+            for (int c = 0; c < d.numCols; c++) {
+                out.set(r, c, d.get(r, c));
+            }
+        }
+        for (int c = 0; c < d.numCols; c++) {
+            out.set(d.numRows, c, d.get(0, c));
+        }
+        return out;
+    }
+
     private static DMatrixRMaj symmetricPower(DMatrixRMaj a, double power) {
         int n = a.numRows;
         EigenDecomposition_F64<DMatrixRMaj> eig = DecompositionFactory_DDRM.eig(n, true, true);
