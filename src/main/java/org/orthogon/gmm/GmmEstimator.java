@@ -108,7 +108,6 @@ public final class GmmEstimator {
         boolean converged = true;
         List<String> atBounds = first.atBounds();
         double[] theta = first.theta();
-        int solverIterations = first.iterations();
         switch (options.method()) {
             case ONE_STEP -> {
             }
@@ -146,7 +145,7 @@ public final class GmmEstimator {
                 weight = efficientWeight(model, theta, longRunOptions, "S at the first-step estimate");
                 WeightedMinimizer.Minimum twoStep = WeightedMinimizer.minimize(model, weight, theta, bounds);
                 requireConverged(twoStep, "two-step estimate that starts the continuously-updated search");
-                double[] scales = standardErrorScales(model, twoStep.theta(), weight, longRunOptions);
+                double[] scales = standardErrorScales(model, twoStep.theta(), longRunOptions);
                 ContinuouslyUpdated.Result cue = ContinuouslyUpdated.minimize(model, longRunOptions, twoStep.theta(),
                         scales, bounds);
                 warnings.addAll(cue.notes());
@@ -169,7 +168,7 @@ public final class GmmEstimator {
         }
         warnings.addAll(last.notes());
         theta = last.theta();
-        solverIterations = last.iterations();
+        int solverIterations = last.iterations();
         if (options.method() != EstimationMethod.ONE_STEP) {
             atBounds = last.atBounds();
         }
@@ -286,8 +285,7 @@ public final class GmmEstimator {
     }
 
     /** Two-step standard errors, used as the unit of the continuously-updated search; |θ|/10 or 0.1 if not finite. */
-    private static double[] standardErrorScales(MomentModel model, double[] theta, DMatrixRMaj weight,
-            LongRunOptions options) {
+    private static double[] standardErrorScales(MomentModel model, double[] theta, LongRunOptions options) {
         double[] scales = new double[theta.length];
         DMatrixRMaj v;
         try {
