@@ -1,6 +1,7 @@
 package org.orthogon.gmm;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
 import org.apache.commons.math3.distribution.NormalDistribution;
 import org.ejml.data.DMatrixRMaj;
@@ -11,22 +12,34 @@ import org.orthogon.longrun.LongRunOptions;
 import org.orthogon.moments.MomentModel;
 
 /**
- * One-step and two-step GMM (Hansen 1982, "Large sample properties of generalized method of moments
- * estimators", Econometrica 50), following the conventions of DESIGN.md section 3:
+ * GMM estimation (Hansen 1982, "Large sample properties of generalized method of moments estimators",
+ * Econometrica 50) following DESIGN.md section 3, with W0 the initial weight of the options (identity,
+ * the inverse second-moment matrix G^{-1} of the payoffs, or a user diagonal):
  * <ul>
- *   <li>one-step: θ̂ = argmin T g_T(θ)' g_T(θ) (identity weight); covariance by the sandwich
- *       (D'D)^{-1} D'SD (D'D)^{-1} / T; the overidentification test is the joint pricing-error test
- *       g' Var(g)^+ g, because T g'g is not chi-square;</li>
- *   <li>two-step: θ̂1 as above, W2 = S(θ̂1)^{-1}, θ̂2 = argmin T g' W2 g; J = T g(θ̂2)' W2 g(θ̂2);
- *       covariance (D' S^{-1} D)^{-1} / T with S re-evaluated at θ̂2.</li>
+ *   <li>one-step: θ̂ = argmin T g' W0 g; covariance by the sandwich
+ *       (D'W0D)^{-1} D'W0 S W0 D (D'W0D)^{-1} / T; the overidentification test is the joint pricing-error
+ *       test g' Var(g)^+ g, because T g' W0 g is not chi-square;</li>
+ *   <li>two-step: θ̂1 with W0, W2 = S(θ̂1)^{-1}, θ̂2 = argmin T g' W2 g; J = T g(θ̂2)' W2 g(θ̂2);</li>
+ *   <li>iterated (Hansen, Heaton and Yaron 1996): W_i = S(θ̂_{i-1})^{-1} until max|Δθ| &lt; tolerance or the
+ *       cap; J with the last weight;</li>
+ *   <li>continuously updated (Hansen, Heaton and Yaron 1996): θ̂ = argmin T g(θ)' S(θ)^{-1} g(θ) started
+ *       from the two-step estimate, J the minimum.</li>
  * </ul>
- * S is re-estimated at the final estimate for the reported standard errors and pricing-error
- * covariance, with the same kernel and bandwidth rule; the final bandwidth is the one reported.
+ * The efficient estimators' covariance is (D' S^{-1} D)^{-1} / T with S re-estimated at θ̂ with the same
+ * kernel and bandwidth rule (an automatic bandwidth is re-selected at every evaluation of S; the final
+ * one is reported). When K = P the estimate solves g_T(θ) = 0 whatever W, and the covariance is
+ * D^{-1} S D^{-1}' / T, computed without forming D'WD.
+ *
+ * <p>Never a clean estimate: a solver that did not converge or a singular D'WD raises
+ * {@link EstimationException}; iterated GMM at its cap and parameters on a bound leave a warning that
+ * starts with "NOT A CLEAN ESTIMATE" and {@link GmmDiagnostics#clean()} false.
  */
 public final class GmmEstimator {
     private static final NormalDistribution STANDARD_NORMAL = new NormalDistribution(null, 0.0, 1.0);
-    /** Reciprocal condition number of S below which estimates are flagged as fragile. */
+    /** Reciprocal condition number of the unit-diagonal S below which estimates are flagged as fragile. */
     static final double NEAR_SINGULAR_RCOND = 1e-10;
+    /** Prefix of every warning that disqualifies the estimate, so tables and JSON can make it loud. */
+    public static final String NOT_CLEAN = "NOT A CLEAN ESTIMATE: ";
 
     private GmmEstimator() {
     }
@@ -41,6 +54,10 @@ public final class GmmEstimator {
         int k = model.momentCount();
         int p = model.parameterCount();
         int t = model.observations();
+        if (start.length != p) {
+            throw new IllegalArgumentException("start has " + start.length + " values, the model has parameters "
+                    + model.parameterNames());
+        }
         if (k < p) {
             throw new EstimationException("the model has " + p + " parameters but only " + k + " moments",
                     List.of("K = " + k, "P = " + p), "add test assets or instruments so that K >= P");
@@ -53,13 +70,19 @@ public final class GmmEstimator {
         try {
             return estimateChecked(model, start, options);
         } catch (Matrices.SingularMatrixException e) {
-            throw new EstimationException(e.getMessage(),
-                    List.of("reciprocal condition number " + e.reciprocalCondition),
-                    e.what.startsWith("D'") ? "the parameters are not identified by these moments: "
-                            + "drop a parameter or add moments that move with it"
-                            : "some test assets (or scaled moments) are nearly linear combinations of others: "
-                                    + "drop one of them or use fewer instruments");
+            throw refusal(e, model);
         }
+    }
+
+    /** The estimation failure a singular matrix means, with the sizes and the fix it calls for. */
+    static EstimationException refusal(Matrices.SingularMatrixException e, MomentModel model) {
+        return new EstimationException(e.getMessage(),
+                List.of("reciprocal condition number " + e.reciprocalCondition, "K = " + model.momentCount(),
+                        "P = " + model.parameterCount(), "T = " + model.observations()),
+                e.what.startsWith("D") ? "the parameters are not identified by these moments: "
+                        + "drop a parameter or add moments that move with it"
+                        : "some test assets (or scaled moments) are nearly linear combinations of others: "
+                                + "drop one of them or use fewer instruments");
     }
 
     private static GmmFit estimateChecked(MomentModel model, double[] start, GmmOptions options) {
@@ -67,40 +90,128 @@ public final class GmmEstimator {
         int p = model.parameterCount();
         int t = model.observations();
         List<String> warnings = new ArrayList<>();
+        ParameterBounds bounds = options.bounds().forParameters(p);
+        double[] origin = bounds.clamp(start);
+        if (!Arrays.equals(origin, start)) {
+            warnings.add("the start values " + Arrays.toString(start) + " lie outside the parameter bounds; the "
+                    + "search started from " + Arrays.toString(origin));
+        }
+        LongRunOptions longRunOptions = options.longRun();
 
-        DMatrixRMaj identity = CommonOps_DDRM.identity(k);
-        WeightedMinimizer.Minimum first = WeightedMinimizer.minimize(model, identity, start);
-        requireConverged(first, "first step (identity weight)");
+        DMatrixRMaj initial = options.initialWeight().matrix(model);
+        WeightedMinimizer.Minimum first = WeightedMinimizer.minimize(model, initial, origin, bounds);
+        requireConverged(first, "first step (" + options.initialWeight().id() + " weight)");
 
         WeightedMinimizer.Minimum last = first;
-        DMatrixRMaj weight = identity;
-        if (options.method() == EstimationMethod.TWO_STEP) {
-            LongRunEstimate firstStepS = longRun(model, first.theta(), options.longRun());
-            weight = Matrices.invertSymmetric(firstStepS.covariance(), "S at the first-step estimate");
-            last = WeightedMinimizer.minimize(model, weight, first.theta());
-            requireConverged(last, "second step (W = S^{-1})");
+        DMatrixRMaj weight = initial;
+        int weightUpdates = 0;
+        boolean converged = true;
+        List<String> atBounds = first.atBounds();
+        double[] theta = first.theta();
+        switch (options.method()) {
+            case ONE_STEP -> {
+            }
+            case TWO_STEP -> {
+                weight = efficientWeight(model, theta, longRunOptions, "S at the first-step estimate");
+                last = WeightedMinimizer.minimize(model, weight, theta, bounds);
+                requireConverged(last, "second step (W = S^{-1})");
+                weightUpdates = 1;
+            }
+            case ITERATED -> {
+                double change = Double.POSITIVE_INFINITY;
+                while (weightUpdates < options.maxIterations() && !(change < options.iterationTolerance())) {
+                    weight = efficientWeight(model, last.theta(), longRunOptions,
+                            "S at iteration " + weightUpdates + " of iterated GMM");
+                    WeightedMinimizer.Minimum next = WeightedMinimizer.minimize(model, weight, last.theta(), bounds);
+                    weightUpdates++;
+                    requireConverged(next, "minimisation at iteration " + weightUpdates + " of iterated GMM");
+                    change = maxAbsDifference(next.theta(), last.theta());
+                    last = next;
+                }
+                if (!(change < options.iterationTolerance())) {
+                    converged = false;
+                    warnings.add(NOT_CLEAN + String.format("iterated GMM stopped at its cap of %d weight updates "
+                            + "with max|Δθ| = %.3g above the tolerance %.1g; the estimate is the last iterate. "
+                            + "Raise the cap, or use two-step or continuously-updated GMM", options.maxIterations(),
+                            change, options.iterationTolerance()));
+                }
+            }
+            case CONTINUOUSLY_UPDATED -> {
+                if (k == p) {
+                    // g(θ̂) = 0 already, so Q = 0 there whatever S(θ): the first step is the estimate.
+                    weight = efficientWeight(model, theta, longRunOptions, "S at the estimate");
+                    break;
+                }
+                weight = efficientWeight(model, theta, longRunOptions, "S at the first-step estimate");
+                WeightedMinimizer.Minimum twoStep = WeightedMinimizer.minimize(model, weight, theta, bounds);
+                requireConverged(twoStep, "two-step estimate that starts the continuously-updated search");
+                double[] scales = standardErrorScales(model, twoStep.theta(), longRunOptions);
+                ContinuouslyUpdated.Result cue = ContinuouslyUpdated.minimize(model, longRunOptions, twoStep.theta(),
+                        scales, bounds);
+                warnings.addAll(cue.notes());
+                if (!cue.converged() && cue.atBounds().isEmpty()) {
+                    List<String> diagnostics = new ArrayList<>(cue.notes());
+                    diagnostics.add("objective " + cue.objective());
+                    diagnostics.add("θ " + Arrays.toString(cue.theta()));
+                    diagnostics.add("two-step estimate " + Arrays.toString(twoStep.theta()));
+                    throw new EstimationException("the continuously-updated search did not reach a minimum with a "
+                            + "positive-definite curvature", diagnostics,
+                            "use iterated or two-step GMM, or fewer moments: the continuously-updated objective "
+                                    + "is flat or irregular here");
+                }
+                weight = efficientWeight(model, cue.theta(), longRunOptions, "S at the continuously-updated estimate");
+                last = new WeightedMinimizer.Minimum(cue.theta(), cue.objective(), cue.converged(), cue.evaluations(),
+                        1 + 2 * p, List.of(), cue.atBounds());
+                weightUpdates = 0;
+            }
+            default -> throw new AssertionError(options.method());
         }
         warnings.addAll(last.notes());
+        theta = last.theta();
+        int solverIterations = last.iterations();
+        if (options.method() != EstimationMethod.ONE_STEP) {
+            atBounds = last.atBounds();
+        }
+        for (String bound : atBounds) {
+            warnings.add(NOT_CLEAN + "the parameter " + bound + " ended on its bound: the optimum may lie beyond "
+                    + "it, so the standard errors and tests, which assume an interior optimum, do not apply. "
+                    + "Check the bound and the start values, or re-specify the model");
+        }
 
-        double[] theta = last.theta();
-        LongRunEstimate finalS = longRun(model, theta, options.longRun());
+        LongRunEstimate finalS = longRun(model, theta, longRunOptions);
         warnings.addAll(finalS.warnings());
         DMatrixRMaj s = finalS.covariance();
-        double rcond = Matrices.reciprocalCondition(s);
-        if (rcond < NEAR_SINGULAR_RCOND) {
-            warnings.add(String.format("S is nearly singular (reciprocal condition number %.2e): "
-                    + "standard errors and tests are unreliable; drop redundant assets or instruments", rcond));
+        double rcondS = Matrices.scaledReciprocalCondition(s);
+        if (rcondS < NEAR_SINGULAR_RCOND) {
+            warnings.add(String.format("S is nearly singular (condition number %.2e after scaling to a unit "
+                    + "diagonal): standard errors and tests are unreliable; drop redundant assets or instruments, "
+                    + "or use a fixed (one-step) weight", 1.0 / rcondS));
         }
         if (k > t / 10.0) {
             warnings.add(String.format("K = %d moments against T = %d observations (K > T/10): the efficient "
                     + "weight is estimated imprecisely and the J test over-rejects in samples this size; "
-                    + "prefer fewer assets or a fixed (one-step) weight", k, t));
+                    + "prefer fewer assets or instruments, or a fixed (one-step) weight", k, t));
         }
 
         DMatrixRMaj jacobian = model.meanJacobian(theta);
-        DMatrixRMaj covariance = options.method() == EstimationMethod.TWO_STEP
-                ? Inference.efficientCovariance(jacobian, s, t)
-                : Inference.sandwichCovariance(jacobian, weight, s, t);
+        DMatrixRMaj covariance;
+        DMatrixRMaj errorCovariance;
+        double rcondDwd;
+        if (k == p) {
+            rcondDwd = Matrices.equilibratedReciprocalCondition(jacobian);
+            covariance = exactlyIdentifiedCovariance(jacobian, s, t);
+            errorCovariance = new DMatrixRMaj(k, k);
+        } else {
+            rcondDwd = Matrices.scaledReciprocalCondition(Matrices.quadraticForm(jacobian, weight));
+            covariance = options.method().isEfficient() ? Inference.efficientCovariance(jacobian, s, t)
+                    : Inference.sandwichCovariance(jacobian, weight, s, t);
+            errorCovariance = Inference.pricingErrorCovariance(jacobian, weight, s, t);
+        }
+        if (rcondDwd < 1e-10) {
+            warnings.add(String.format("D'WD is nearly singular (condition number %.2e after scaling): some "
+                    + "parameters are close to unidentified; drop one or add moments that move with it",
+                    1.0 / rcondDwd));
+        }
 
         List<ParameterEstimate> parameters = new ArrayList<>(p);
         for (int i = 0; i < p; i++) {
@@ -111,7 +222,6 @@ public final class GmmEstimator {
         }
 
         DMatrixRMaj g = model.meanMoments(theta);
-        DMatrixRMaj errorCovariance = Inference.pricingErrorCovariance(jacobian, weight, s, t);
         List<PricingError> errors = new ArrayList<>(k);
         for (int i = 0; i < k; i++) {
             double se = Math.sqrt(Math.max(errorCovariance.get(i, i), 0.0));
@@ -121,9 +231,10 @@ public final class GmmEstimator {
         ChiSquareTest joint = df == 0
                 ? new ChiSquareTest("pricing-errors-joint", 0.0, 0, Double.NaN)
                 : ChiSquareTest.of("pricing-errors-joint", Inference.jointPricingStatistic(g, errorCovariance, df), df);
-        double objective = Inference.quadraticStatistic(g, weight, t);
+        double objective = options.method() == EstimationMethod.CONTINUOUSLY_UPDATED ? last.objective()
+                : Inference.quadraticStatistic(g, weight, t);
         ChiSquareTest overidentification;
-        if (options.method() == EstimationMethod.TWO_STEP) {
+        if (options.method().isEfficient()) {
             overidentification = df == 0 ? new ChiSquareTest("hansen-j", objective, 0, Double.NaN)
                     : ChiSquareTest.of("hansen-j", objective, df);
         } else {
@@ -132,8 +243,17 @@ public final class GmmEstimator {
         if (df == 0) {
             warnings.add("the model is exactly identified (K = P): there are no overidentifying restrictions to test");
         }
+
+        HjDistance hj = null;
+        try {
+            hj = HansenJagannathan.distance(model, theta, longRunOptions, bounds, options.hjSeed(), options.hjDraws());
+        } catch (EstimationException e) {
+            warnings.add("the Hansen-Jagannathan distance is not reported: " + e.getMessage());
+        }
+        GmmDiagnostics diagnostics = new GmmDiagnostics(1.0 / rcondS, 1.0 / rcondDwd, k, t, p, solverIterations,
+                weightUpdates, converged && last.converged(), atBounds);
         return new GmmFit(options.method(), parameters, covariance, t, k, objective, overidentification, errors, joint,
-                finalS, last.iterations(), warnings);
+                finalS, solverIterations, warnings, weight, diagnostics, hj, options.confidenceLevel());
     }
 
     /** S at θ: the long-run covariance of the contributions f_t(θ). */
@@ -141,20 +261,73 @@ public final class GmmEstimator {
         return LongRunCovariance.estimate(model.contributions(theta), options);
     }
 
+    /** S(θ)^{-1}; K = P needs no weight (the estimate solves g = 0), so the identity stands in when S is singular. */
+    private static DMatrixRMaj efficientWeight(MomentModel model, double[] theta, LongRunOptions options,
+            String what) {
+        try {
+            return Matrices.invertSymmetric(longRun(model, theta, options).covariance(), what);
+        } catch (Matrices.SingularMatrixException e) {
+            if (model.momentCount() == model.parameterCount()) {
+                return CommonOps_DDRM.identity(model.momentCount());
+            }
+            throw e;
+        }
+    }
+
+    /** V = D^{-1} S D^{-1}' / T for K = P, both the efficient and the sandwich formula reduced. */
+    private static DMatrixRMaj exactlyIdentifiedCovariance(DMatrixRMaj jacobian, DMatrixRMaj s, int t) {
+        DMatrixRMaj dInvS = Matrices.solveSquare(jacobian, s, "D (K = P)");
+        DMatrixRMaj transposed = new DMatrixRMaj(dInvS.numCols, dInvS.numRows);
+        CommonOps_DDRM.transpose(dInvS, transposed);
+        DMatrixRMaj v = Matrices.solveSquare(jacobian, transposed, "D (K = P)");
+        CommonOps_DDRM.divide(v, t);
+        return Matrices.symmetrize(v);
+    }
+
+    /** Two-step standard errors, used as the unit of the continuously-updated search; |θ|/10 or 0.1 if not finite. */
+    private static double[] standardErrorScales(MomentModel model, double[] theta, LongRunOptions options) {
+        double[] scales = new double[theta.length];
+        DMatrixRMaj v;
+        try {
+            v = Inference.efficientCovariance(model.meanJacobian(theta), longRun(model, theta, options).covariance(),
+                    model.observations());
+        } catch (Matrices.SingularMatrixException e) {
+            v = null;
+        }
+        for (int j = 0; j < theta.length; j++) {
+            double se = v == null ? Double.NaN : Math.sqrt(v.get(j, j));
+            scales[j] = Double.isFinite(se) && se > 0.0 ? se : Math.max(0.1 * Math.abs(theta[j]), 0.1);
+        }
+        return scales;
+    }
+
+    private static double maxAbsDifference(double[] a, double[] b) {
+        double max = 0.0;
+        for (int i = 0; i < a.length; i++) {
+            max = Math.max(max, Math.abs(a[i] - b[i]));
+        }
+        return max;
+    }
+
     private static void requireConverged(WeightedMinimizer.Minimum minimum, String step) {
         if (!minimum.converged()) {
             List<String> diagnostics = new ArrayList<>(minimum.notes());
             diagnostics.add("objective " + minimum.objective());
-            diagnostics.add("θ " + java.util.Arrays.toString(minimum.theta()));
+            diagnostics.add("θ " + Arrays.toString(minimum.theta()));
             throw new EstimationException("the " + step + " did not converge", diagnostics,
                     "try other start_values in the model file, or check that the moments identify the parameters");
         }
     }
 
-    private static double twoSidedNormalP(double z) {
+    static double twoSidedNormalP(double z) {
         if (!Double.isFinite(z)) {
             return Double.NaN;
         }
         return 2.0 * STANDARD_NORMAL.cumulativeProbability(-Math.abs(z));
+    }
+
+    /** The standard normal quantile z with P(Z ≤ z) = probability. */
+    static double normalQuantile(double probability) {
+        return STANDARD_NORMAL.inverseCumulativeProbability(probability);
     }
 }

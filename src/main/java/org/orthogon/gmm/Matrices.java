@@ -69,22 +69,142 @@ final class Matrices {
     }
 
     /**
-     * Inverse of a symmetric positive-definite matrix by Cholesky; refuses a numerically singular one
-     * with a message naming it, because a silently regularised inverse would fake precision.
+     * Reciprocal condition number of a symmetric matrix after scaling it to a unit diagonal,
+     * C = Λ^{-1/2} A Λ^{-1/2} with Λ = diag(A). The scaling removes the units of the moments (or
+     * parameters) from the measure, so a moment expressed in percent instead of decimals does not look
+     * nearer to singular (van der Sluis 1969, Numerische Mathematik 14: this scaling is within a factor
+     * n of the best diagonal one for Cholesky). A non-positive diagonal entry gives 0.
+     */
+    static double scaledReciprocalCondition(DMatrixRMaj a) {
+        double[] scale = unitDiagonalScale(a);
+        return scale == null ? 0.0 : reciprocalCondition(scaled(a, scale));
+    }
+
+    /**
+     * Inverse of a symmetric positive-definite matrix by Cholesky of its unit-diagonal scaling
+     * C = Λ^{-1/2} A Λ^{-1/2}, A^{-1} = Λ^{-1/2} C^{-1} Λ^{-1/2}; refuses a numerically singular one
+     * with a message naming it, because a silently regularised inverse would fake precision. The test
+     * uses the scaled condition number so that rescaling a moment by a constant never changes the
+     * verdict.
      */
     static DMatrixRMaj invertSymmetric(DMatrixRMaj a, String what) {
-        double rcond = reciprocalCondition(a);
+        double[] scale = unitDiagonalScale(a);
+        if (scale == null) {
+            throw new SingularMatrixException(what + " (a diagonal entry is not positive)", 0.0);
+        }
+        DMatrixRMaj c = scaled(a, scale);
+        double rcond = reciprocalCondition(c);
         if (!(rcond > SINGULAR_RCOND)) {
             throw new SingularMatrixException(what, rcond);
         }
         LinearSolverDense<DMatrixRMaj> solver = LinearSolverFactory_DDRM.symmPosDef(a.numRows);
-        DMatrixRMaj copy = a.copy();
         DMatrixRMaj inverse = new DMatrixRMaj(a.numRows, a.numRows);
-        if (!solver.setA(copy)) {
+        if (!solver.setA(c)) {
             throw new SingularMatrixException(what + " (not positive definite)", rcond);
         }
         solver.invert(inverse);
-        return symmetrize(inverse);
+        return symmetrize(scaled(inverse, scale));
+    }
+
+    /** 1/sqrt(a_ii) for each i, or null when a diagonal entry is not a positive finite number. */
+    private static double[] unitDiagonalScale(DMatrixRMaj a) {
+        double[] scale = new double[a.numRows];
+        for (int i = 0; i < a.numRows; i++) {
+            double d = a.unsafe_get(i, i);
+            if (!(d > 0.0) || !Double.isFinite(d)) {
+                return null;
+            }
+            scale[i] = 1.0 / Math.sqrt(d);
+        }
+        return scale;
+    }
+
+    /** diag(scale) A diag(scale), a new matrix. */
+    private static DMatrixRMaj scaled(DMatrixRMaj a, double[] scale) {
+        DMatrixRMaj out = new DMatrixRMaj(a.numRows, a.numCols);
+        for (int i = 0; i < a.numRows; i++) {
+            for (int j = 0; j < a.numCols; j++) {
+                out.unsafe_set(i, j, scale[i] * a.unsafe_get(i, j) * scale[j]);
+            }
+        }
+        return out;
+    }
+
+    /**
+     * x solving A x = b for a square A by LU with partial pivoting on the equilibrated matrix
+     * Ã = diag(r) A diag(c), rows then columns scaled to unit largest magnitude (as LAPACK's dgeequ), so
+     * that the units of moments and parameters neither trigger a false "singular" nor cost accuracy;
+     * x = diag(c) Ã^{-1} diag(r) b. Refuses an Ã whose reciprocal condition number is below
+     * {@link #SINGULAR_RCOND}.
+     */
+    static DMatrixRMaj solveSquare(DMatrixRMaj a, DMatrixRMaj b, String what) {
+        int n = a.numRows;
+        double[] rows = new double[n];
+        double[] cols = new double[n];
+        DMatrixRMaj e = equilibrated(a, rows, cols);
+        if (e == null) {
+            throw new SingularMatrixException(what + " (a zero row or column)", 0.0);
+        }
+        double rcond = reciprocalCondition(e);
+        if (!(rcond > SINGULAR_RCOND)) {
+            throw new SingularMatrixException(what, rcond);
+        }
+        LinearSolverDense<DMatrixRMaj> solver = LinearSolverFactory_DDRM.lu(n);
+        if (!solver.setA(e.copy())) {
+            throw new SingularMatrixException(what, rcond);
+        }
+        DMatrixRMaj rhs = b.copy();
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < rhs.numCols; j++) {
+                rhs.unsafe_set(i, j, rows[i] * rhs.unsafe_get(i, j));
+            }
+        }
+        DMatrixRMaj x = new DMatrixRMaj(n, b.numCols);
+        solver.solve(rhs, x);
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < x.numCols; j++) {
+                x.unsafe_set(i, j, cols[i] * x.unsafe_get(i, j));
+            }
+        }
+        return x;
+    }
+
+    /** Reciprocal condition number of A after row and column equilibration (see {@link #solveSquare}). */
+    static double equilibratedReciprocalCondition(DMatrixRMaj a) {
+        DMatrixRMaj e = equilibrated(a, new double[a.numRows], new double[a.numCols]);
+        return e == null ? 0.0 : reciprocalCondition(e);
+    }
+
+    /** diag(rows) A diag(cols) with unit largest magnitude per row, then per column; null for a zero row or column. */
+    private static DMatrixRMaj equilibrated(DMatrixRMaj a, double[] rows, double[] cols) {
+        DMatrixRMaj e = a.copy();
+        for (int i = 0; i < a.numRows; i++) {
+            double max = 0.0;
+            for (int j = 0; j < a.numCols; j++) {
+                max = Math.max(max, Math.abs(e.unsafe_get(i, j)));
+            }
+            if (!(max > 0.0) || !Double.isFinite(max)) {
+                return null;
+            }
+            rows[i] = 1.0 / max;
+            for (int j = 0; j < a.numCols; j++) {
+                e.unsafe_set(i, j, e.unsafe_get(i, j) * rows[i]);
+            }
+        }
+        for (int j = 0; j < a.numCols; j++) {
+            double max = 0.0;
+            for (int i = 0; i < a.numRows; i++) {
+                max = Math.max(max, Math.abs(e.unsafe_get(i, j)));
+            }
+            if (!(max > 0.0)) {
+                return null;
+            }
+            cols[j] = 1.0 / max;
+            for (int i = 0; i < a.numRows; i++) {
+                e.unsafe_set(i, j, e.unsafe_get(i, j) * cols[j]);
+            }
+        }
+        return e;
     }
 
     /** Lower-triangular L with L L' = A, for a symmetric positive-definite A. */

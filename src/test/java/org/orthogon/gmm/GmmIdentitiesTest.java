@@ -14,7 +14,6 @@ import org.junit.jupiter.params.provider.ValueSource;
 import org.orthogon.demo.LumenEconomy;
 import org.orthogon.demo.LumenSimulator;
 import org.orthogon.longrun.LongRunOptions;
-import org.orthogon.moments.LinearFactorErrors;
 import org.orthogon.moments.MomentModel;
 import org.orthogon.moments.PowerUtilityErrors;
 import org.orthogon.moments.ScaledMoments;
@@ -26,17 +25,7 @@ class GmmIdentitiesTest {
 
     /** Excess returns and factors from a short simulated Lumen sample. */
     private static MomentModel linearModel(int assets, long seed) {
-        LumenEconomy economy = LumenEconomy.standard();
-        var sample = LumenSimulator.simulate(economy, 1962, 40, seed);
-        int months = sample.months().size();
-        double[][] excess = new double[months][assets];
-        for (int t = 0; t < months; t++) {
-            for (int i = 0; i < assets; i++) {
-                excess[t][i] = sample.portfolioReturns()[t][i] - sample.riskfree()[t];
-            }
-        }
-        return ScaledMoments.unscaled(new LinearFactorErrors(excess, sample.factors(),
-                economy.portfolioNames().subList(0, assets), economy.factorNames()));
+        return LumenModels.linearSdf(assets, 40, seed);
     }
 
     @Test

@@ -1,0 +1,49 @@
+package org.orthogon.gmm;
+
+import java.util.List;
+import org.ejml.data.DMatrixRMaj;
+import org.orthogon.moments.MomentModel;
+
+/** A moment model that passes every call to another; views override what they change. */
+abstract class ForwardingMomentModel implements MomentModel {
+    protected final MomentModel base;
+
+    ForwardingMomentModel(MomentModel base) {
+        this.base = base;
+    }
+
+    @Override
+    public List<String> parameterNames() {
+        return base.parameterNames();
+    }
+
+    @Override
+    public List<String> momentNames() {
+        return base.momentNames();
+    }
+
+    @Override
+    public int observations() {
+        return base.observations();
+    }
+
+    @Override
+    public DMatrixRMaj contributions(double[] theta) {
+        return base.contributions(theta);
+    }
+
+    @Override
+    public DMatrixRMaj meanJacobian(double[] theta) {
+        return base.meanJacobian(theta);
+    }
+
+    @Override
+    public boolean isLinear() {
+        return base.isLinear();
+    }
+
+    @Override
+    public DMatrixRMaj payoffs() {
+        return base.payoffs();
+    }
+}
