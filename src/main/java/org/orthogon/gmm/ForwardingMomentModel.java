@@ -46,4 +46,14 @@ abstract class ForwardingMomentModel implements MomentModel {
     public DMatrixRMaj payoffs() {
         return base.payoffs();
     }
+
+    @Override
+    public int pricingMomentCount() {
+        return base.pricingMomentCount();
+    }
+
+    @Override
+    public double meanDiscountFactor(double[] theta) {
+        return base.meanDiscountFactor(theta);
+    }
 }

@@ -158,6 +158,16 @@ public final class WeightedMinimizer {
         }
 
         @Override
+        public double meanDiscountFactor(double[] theta) {
+            return base.meanDiscountFactor(expand(theta));
+        }
+
+        @Override
+        public MomentModel rows(int from, int to) {
+            return new FixedParameters(base.rows(from, to), full, index);
+        }
+
+        @Override
         public DMatrixRMaj meanJacobian(double[] theta) {
             DMatrixRMaj d = base.meanJacobian(expand(theta));
             DMatrixRMaj out = new DMatrixRMaj(d.numRows, index.length);

@@ -41,11 +41,21 @@ public interface MomentModel {
      */
     DMatrixRMaj payoffs();
 
-    /** The same moment conditions on observations [from, to) only (subsample and rolling-window fits). */
-    MomentModel rows(int from, int to);
+    /**
+     * The same moment conditions on observations [from, to) only (subsample and rolling-window fits).
+     * Every model built from a family supports it; a hand-made model that cannot be cut says so.
+     */
+    default MomentModel rows(int from, int to) {
+        throw new UnsupportedOperationException(getClass().getSimpleName() + " cannot be cut to a window of rows");
+    }
 
-    /** The sample mean of the stochastic discount factor, (1/T) Σ_t m_t(θ). */
-    double meanDiscountFactor(double[] theta);
+    /**
+     * The sample mean of the stochastic discount factor, (1/T) Σ_t m_t(θ). Moments that come from no SDF
+     * (a regression written as GMM, say) have none and say so.
+     */
+    default double meanDiscountFactor(double[] theta) {
+        throw new UnsupportedOperationException(getClass().getSimpleName() + " has no stochastic discount factor");
+    }
 
     /** The 1 x K sample mean g_T(θ), as a K x 1 column. */
     default DMatrixRMaj meanMoments(double[] theta) {
