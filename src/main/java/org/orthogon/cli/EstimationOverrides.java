@@ -1,6 +1,7 @@
 package org.orthogon.cli;
 
 import java.util.Arrays;
+import java.util.List;
 import java.util.stream.Collectors;
 import org.orthogon.data.InputException;
 import org.orthogon.gmm.EstimationMethod;
@@ -13,7 +14,8 @@ import picocli.CommandLine.Option;
 
 /** Command-line options that replace the model file's [estimation] choices (DESIGN.md section 4). */
 final class EstimationOverrides {
-    @Option(names = "--method", paramLabel = "METHOD", description = "one-step or two-step")
+    @Option(names = "--method", paramLabel = "METHOD",
+            description = "one-step, two-step, iterated or continuously-updated")
     String method;
 
     @Option(names = "--kernel", paramLabel = "KERNEL",
@@ -32,6 +34,10 @@ final class EstimationOverrides {
     @Option(names = "--centered", negatable = true,
             description = "demean the moments before estimating S (--no-centered: use f_t as it is)")
     Boolean centered;
+
+    @Option(names = "--restrict", paramLabel = "RESTRICTIONS",
+            description = "linear restrictions to test by a Wald statistic, e.g. \"b_SIZE = 0, b_TIDE = 0\" (repeatable)")
+    List<String> restrict;
 
     /** The spec with these options in force. */
     RunSpec apply(RunSpec spec) {
@@ -54,8 +60,8 @@ final class EstimationOverrides {
         }
         boolean newPrewhiten = prewhiten == null ? e.prewhiten() : prewhiten;
         boolean newCentered = centered == null ? e.centered() : centered;
-        return spec.withEstimation(new EstimationSpec(newMethod, e.initialWeight(), newKernel, rule, newPrewhiten,
-                newCentered));
+        EstimationSpec updated = e.with(newMethod, newKernel, rule, newPrewhiten, newCentered);
+        return spec.withEstimation(restrict == null ? updated : updated.withRestrictions(restrict));
     }
 
     private static EstimationMethod parseMethod(String text) {

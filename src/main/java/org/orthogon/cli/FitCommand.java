@@ -67,9 +67,13 @@ final class FitCommand implements Callable<Integer> {
         GmmFit fit = run.fit();
         List<SensitivityGrid.SensitivityRow> grid = sensitivity
                 ? SensitivityGrid.run(prepared.moments(), prepared.startValues(), fit, spec.estimation().centered(),
-                        choice -> FittedRun.options(spec.withEstimation(spec.estimation().withLongRun(choice))))
+                        choice -> FittedRun.options(spec.withEstimation(spec.estimation().withLongRun(choice)), prepared))
                 : List.of();
+        List<FittedRun.RestrictionTest> restrictions = run.restrictionTests();
         ObjectNode results = JsonResults.fit(spec, prepared.sample(), fit);
+        if (!restrictions.isEmpty()) {
+            JsonResults.addRestrictions(results, restrictions);
+        }
         if (sensitivity) {
             SensitivityReport.addTo(results, grid, prepared.moments().parameterNames());
         }
@@ -84,7 +88,7 @@ final class FitCommand implements Callable<Integer> {
         }
         if (!quiet) {
             PrintWriter out = commandSpec.commandLine().getOut();
-            out.print(ConsoleReport.render(spec, prepared.sample(), fit, prepared.notes()));
+            out.print(ConsoleReport.render(spec, prepared.sample(), fit, prepared.notes(), restrictions));
             if (sensitivity) {
                 out.print("\n" + SensitivityReport.render(grid, prepared.moments().parameterNames()));
             }

@@ -19,6 +19,7 @@ import org.orthogon.data.InputException;
 import org.orthogon.data.Period;
 import org.orthogon.gmm.EstimationMethod;
 import org.orthogon.gmm.GmmOptions;
+import org.orthogon.gmm.InitialWeight;
 import org.orthogon.report.CheckReport;
 import org.orthogon.report.JsonResults;
 import org.orthogon.report.Manifest;
@@ -99,10 +100,10 @@ final class StabilityCommand implements Callable<Integer> {
         List<Integer> splitIndices = splitIndices(spec, prepared);
         List<String> warnings = new ArrayList<>();
 
-        GmmOptions efficient = FittedRun.options(spec);
+        GmmOptions efficient = FittedRun.options(spec, prepared);
         List<GmmOptions> variants = new ArrayList<>(List.of(efficient));
         if (efficient.method() != EstimationMethod.ONE_STEP) {
-            variants.add(new GmmOptions(EstimationMethod.ONE_STEP, efficient.longRun()));
+            variants.add(efficient.withMethod(EstimationMethod.ONE_STEP).withInitialWeight(new InitialWeight.Identity()));
         }
         List<StabilityReport.Variant> results = new ArrayList<>();
         for (GmmOptions options : variants) {

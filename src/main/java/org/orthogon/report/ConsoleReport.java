@@ -3,10 +3,13 @@ package org.orthogon.report;
 import java.util.List;
 import java.util.Locale;
 import org.orthogon.gmm.ChiSquareTest;
+import org.orthogon.gmm.ConfidenceInterval;
+import org.orthogon.gmm.GmmDiagnostics;
 import org.orthogon.gmm.GmmFit;
 import org.orthogon.gmm.ParameterEstimate;
 import org.orthogon.gmm.PricingError;
 import org.orthogon.longrun.Kernel;
+import org.orthogon.spec.FittedRun;
 import org.orthogon.spec.RunSpec;
 import org.orthogon.spec.SampleInfo;
 
@@ -17,6 +20,12 @@ public final class ConsoleReport {
 
     /** Renders the summary as text, ending in a newline. */
     public static String render(RunSpec spec, SampleInfo sample, GmmFit fit, List<String> dataNotes) {
+        return render(spec, sample, fit, dataNotes, List.of());
+    }
+
+    /** As {@link #render(RunSpec, SampleInfo, GmmFit, List)}, with the Wald tests of the restrictions. */
+    public static String render(RunSpec spec, SampleInfo sample, GmmFit fit, List<String> dataNotes,
+            List<FittedRun.RestrictionTest> restrictions) {
         StringBuilder out = new StringBuilder();
         out.append(spec.title()).append('\n');
         out.append(String.format(Locale.ROOT, "  %s SDF, %s GMM, %s %s to %s (T = %d), %d moments, %d parameters%n",
@@ -25,18 +34,26 @@ public final class ConsoleReport {
         out.append("  long-run covariance: ").append(describeLongRun(fit)).append("\n\n");
 
         out.append("Parameters\n");
-        TextTable parameters = new TextTable(List.of("parameter", "estimate", "std. error", "t-stat", "p-value"));
-        for (ParameterEstimate p : fit.parameters()) {
+        String level = String.format(Locale.ROOT, "%.0f%%", 100 * fit.confidenceLevel());
+        TextTable parameters = new TextTable(List.of("parameter", "estimate", "std. error", "t-stat", "p-value",
+                level + " low", level + " high"));
+        List<ConfidenceInterval> intervals = fit.confidenceIntervals();
+        for (int i = 0; i < fit.parameters().size(); i++) {
+            ParameterEstimate p = fit.parameters().get(i);
             parameters.row(List.of(p.name(), number(p.estimate()), number(p.stdError()), fixed(p.tStat(), 2),
-                    fixed(p.pValue(), 4)));
+                    fixed(p.pValue(), 4), number(intervals.get(i).lower()), number(intervals.get(i).upper())));
         }
         out.append(parameters.render("  ")).append('\n');
 
         ChiSquareTest over = fit.overidentification();
         out.append(over.kind().equals("hansen-j") ? "Overidentifying restrictions: Hansen J test\n"
                 : "Overidentifying restrictions: joint test of the pricing errors (one-step weight)\n");
-        out.append(String.format(Locale.ROOT, "  statistic %s, %d degrees of freedom, p-value %s%n%n",
+        out.append(String.format(Locale.ROOT, "  statistic %s, %d degrees of freedom, p-value %s%n",
                 fixed(over.statistic(), 3), over.df(), fixed(over.pValue(), 4)));
+        fit.hj().ifPresent(hj -> out.append(String.format(Locale.ROOT, "Hansen-Jagannathan distance %s, p-value %s "
+                + "(simulated weighted chi-square limit, seed %d, %d draws)%n", number(hj.value()), fixed(hj.pValue(), 4),
+                hj.seed(), hj.draws())));
+        out.append('\n');
 
         out.append("Pricing errors (sample mean of each moment at the estimate)\n");
         TextTable errors = new TextTable(List.of("moment", "error", "std. error", "t-stat"));
@@ -48,6 +65,11 @@ public final class ConsoleReport {
         out.append(String.format(Locale.ROOT, "  all errors zero: chi-square %s, %d degrees of freedom, p-value %s%n",
                 fixed(joint.statistic(), 3), joint.df(), fixed(joint.pValue(), 4)));
 
+        out.append(renderRestrictions(restrictions));
+        GmmDiagnostics d = fit.diagnostics();
+        out.append(String.format(Locale.ROOT, "%ndiagnostics: condition number of S %s, of D'WD %s; %d solver "
+                + "iterations, %d weight updates, %s%n", number(d.conditionS()), number(d.conditionDWD()),
+                d.solverIterations(), d.weightUpdates(), d.clean() ? "converged" : "NOT CLEAN"));
         if (!fit.warnings().isEmpty() || !dataNotes.isEmpty()) {
             out.append('\n');
             for (String note : dataNotes) {
@@ -59,6 +81,19 @@ public final class ConsoleReport {
         }
         out.append('\n').append(Caution.TEXT).append('\n');
         return out.toString();
+    }
+
+    /** The Wald tests of the model file's (and the command line's) linear restrictions. */
+    static String renderRestrictions(List<FittedRun.RestrictionTest> tests) {
+        if (tests.isEmpty()) {
+            return "";
+        }
+        TextTable table = new TextTable(List.of("restrictions", "Wald statistic", "df", "p-value"));
+        for (FittedRun.RestrictionTest test : tests) {
+            table.row(List.of(test.restrictions(), fixed(test.test().statistic(), 3), Integer.toString(test.test().df()),
+                    fixed(test.test().pValue(), 4)));
+        }
+        return "\nLinear restrictions (Wald tests with the reported covariance)\n" + table.render("  ");
     }
 
     static String describeLongRun(GmmFit fit) {

@@ -2,9 +2,12 @@ package org.orthogon.report;
 
 import java.util.List;
 import org.orthogon.gmm.ChiSquareTest;
+import org.orthogon.gmm.ConfidenceInterval;
+import org.orthogon.gmm.GmmDiagnostics;
 import org.orthogon.gmm.GmmFit;
 import org.orthogon.gmm.ParameterEstimate;
 import org.orthogon.gmm.PricingError;
+import org.orthogon.spec.FittedRun;
 import org.orthogon.spec.RunSpec;
 import org.orthogon.spec.SampleInfo;
 import tools.jackson.databind.json.JsonMapper;
@@ -45,14 +48,19 @@ public final class JsonResults {
         longRun.put("prewhitened", fit.longRun().prewhitened());
         longRun.put("centered", fit.longRun().centered());
         ArrayNode parameters = root.putArray("parameters");
-        for (ParameterEstimate p : fit.parameters()) {
+        List<ConfidenceInterval> intervals = fit.confidenceIntervals();
+        for (int i = 0; i < fit.parameters().size(); i++) {
+            ParameterEstimate p = fit.parameters().get(i);
             ObjectNode node = parameters.addObject();
             node.put("name", p.name());
             number(node, "estimate", p.estimate());
             number(node, "std_error", p.stdError());
             number(node, "t_stat", p.tStat());
             number(node, "p_value", p.pValue());
+            number(node, "conf_low", intervals.get(i).lower());
+            number(node, "conf_high", intervals.get(i).upper());
         }
+        number(root, "confidence_level", fit.confidenceLevel());
         test(root.putObject("overidentification"), fit.overidentification());
         ArrayNode errors = root.putArray("pricing_errors");
         for (PricingError e : fit.pricingErrors()) {
@@ -63,12 +71,42 @@ public final class JsonResults {
             number(node, "t_stat", e.tStat());
         }
         test(root.putObject("pricing_errors_joint"), fit.pricingErrorsJoint());
-        root.put("moments", fit.momentCount());
-        root.put("solver_iterations", fit.solverIterations());
+        fit.hj().ifPresent(hj -> {
+            ObjectNode node = root.putObject("hj_distance");
+            number(node, "value", hj.value());
+            number(node, "p_value", hj.pValue());
+            node.put("p_value_method", "simulated weighted chi-square limit (Jagannathan and Wang 1996)");
+            node.put("seed", hj.seed());
+            node.put("draws", hj.draws());
+        });
+        GmmDiagnostics d = fit.diagnostics();
+        ObjectNode diagnostics = root.putObject("diagnostics");
+        number(diagnostics, "condition_s", d.conditionS());
+        number(diagnostics, "condition_dwd", d.conditionDWD());
+        diagnostics.put("moments", d.moments());
+        diagnostics.put("observations", d.observations());
+        diagnostics.put("parameters", d.parameters());
+        diagnostics.put("solver_iterations", d.solverIterations());
+        diagnostics.put("weight_updates", d.weightUpdates());
+        diagnostics.put("converged", d.converged());
+        ArrayNode atBounds = diagnostics.putArray("parameters_at_bounds");
+        d.parametersAtBounds().forEach(atBounds::add);
         ArrayNode warnings = root.putArray("warnings");
         fit.warnings().forEach(warnings::add);
         root.put("caution", Caution.TEXT);
         return root;
+    }
+
+    /** Adds the Wald tests of the model file's restrictions as the field "restrictions". */
+    public static void addRestrictions(ObjectNode results, List<FittedRun.RestrictionTest> tests) {
+        ArrayNode array = results.putArray("restrictions");
+        for (FittedRun.RestrictionTest restriction : tests) {
+            ObjectNode node = array.addObject();
+            node.put("restrictions", restriction.restrictions());
+            number(node, "statistic", restriction.test().statistic());
+            node.put("df", restriction.test().df());
+            number(node, "p_value", restriction.test().pValue());
+        }
     }
 
     /** Pretty-printed JSON text with a final newline. */

@@ -42,15 +42,15 @@ public final class ModelFile {
             "riskfree_column", "factors", "macro", "instruments", "wealth", "start", "end");
     private static final List<String> MODEL_KEYS = List.of("family", "consumption_column", "factor_columns",
             "instrument_columns", "start_values", "form", "wealth_column", "sdf", "parameters", "payoff",
-            "factor_instruments");
+            "factor_instruments", "bounds");
     private static final List<String> FORMS = List.of("excess", "demeaned", "gross");
     private static final List<String> PAYOFFS = List.of("gross", "excess");
     private static final List<String> ESTIMATION_KEYS = List.of("method", "initial_weight", "kernel", "bandwidth",
-            "lags", "prewhiten", "centered");
+            "lags", "prewhiten", "centered", "restrictions", "confidence_level", "max_iterations", "hj_seed", "hj_draws");
     private static final List<String> STABILITY_KEYS = List.of("splits", "trimming", "window", "step", "expanding");
     private static final List<String> RETURN_KINDS = List.of("gross", "net", "excess");
     private static final List<String> UNITS = List.of("decimal", "percent");
-    private static final List<String> INITIAL_WEIGHTS = List.of("identity");
+    private static final List<String> INITIAL_WEIGHTS = List.of("identity", "second-moment");
 
     private final Path file;
     private final List<String> lines;
@@ -219,7 +219,8 @@ public final class ModelFile {
                 optionalString("model", model, "sdf"),
                 stringList("model", model, "parameters"),
                 choice("model", model, "payoff", PAYOFFS, "gross"),
-                stringList("model", model, "factor_instruments"));
+                stringList("model", model, "factor_instruments"),
+                bounds(model));
     }
 
     private EstimationSpec parseEstimation(JsonNode estimation) {
@@ -250,8 +251,52 @@ public final class ModelFile {
         } else {
             rule = new BandwidthRule.Lags(kernel == Kernel.NONE ? 0 : 4);
         }
+        double level = node.has("confidence_level") ? node.get("confidence_level").asDouble() : 0.95;
+        if (node.has("confidence_level") && !(node.get("confidence_level").isNumber() && level > 0 && level < 1)) {
+            throw error("estimation", "confidence_level", "confidence_level must be a number between 0 and 1, found "
+                    + node.get("confidence_level"), "write confidence_level = 0.95");
+        }
         return new EstimationSpec(EstimationMethod.fromId(methodId), weight, kernel, rule,
-                bool("estimation", node, "prewhiten", false), bool("estimation", node, "centered", true));
+                bool("estimation", node, "prewhiten", false), bool("estimation", node, "centered", true),
+                stringList("estimation", node, "restrictions"), level,
+                wholeNumber(node, "max_iterations", 1, 100, "max_iterations = 100"),
+                wholeNumber(node, "hj_seed", 0, 20240101, "hj_seed = 20240101"),
+                wholeNumber(node, "hj_draws", 1000, 100_000, "hj_draws = 100000"));
+    }
+
+    private int wholeNumber(JsonNode node, String key, int minimum, int fallback, String example) {
+        if (!node.has(key)) {
+            return fallback;
+        }
+        JsonNode value = node.get(key);
+        if (!value.isIntegralNumber() || value.asLong() < minimum || value.asLong() > Integer.MAX_VALUE) {
+            throw error("estimation", key, key + " must be a whole number of at least " + minimum + ", found " + value,
+                    "write " + example);
+        }
+        return value.asInt();
+    }
+
+    /** [model] bounds = { beta = [0.0, 2.0] }: closed bounds per parameter, checked later against the family. */
+    private Map<String, double[]> bounds(JsonNode model) {
+        Map<String, double[]> bounds = new LinkedHashMap<>();
+        if (!model.has("bounds")) {
+            return bounds;
+        }
+        JsonNode table = model.get("bounds");
+        String example = "write bounds = { beta = [0.0, 2.0] } (use -1e308 or 1e308 for an open side)";
+        if (!table.isObject()) {
+            throw error("model", "bounds", "bounds must be a table of [lower, upper] pairs", example);
+        }
+        for (Map.Entry<String, JsonNode> entry : table.properties()) {
+            JsonNode pair = entry.getValue();
+            if (!pair.isArray() || pair.size() != 2 || !pair.get(0).isNumber() || !pair.get(1).isNumber()
+                    || !(pair.get(0).asDouble() < pair.get(1).asDouble())) {
+                throw error("model", "bounds", "the bounds of " + entry.getKey() + " must be [lower, upper] with "
+                        + "lower < upper, found " + pair, example);
+            }
+            bounds.put(entry.getKey(), new double[] {pair.get(0).asDouble(), pair.get(1).asDouble()});
+        }
+        return bounds;
     }
 
     private RunSpec.StabilitySpec parseStability(JsonNode node) {

@@ -52,6 +52,7 @@ public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec mod
      * @param parameters        expression: the parameter names, in order
      * @param payoff            expression: "gross" (E[m R] = 1) or "excess" (E[m R^e] = 0)
      * @param factorInstruments linear-factor: instruments that scale the factors, F_t ⊗ z_{t-1}
+     * @param bounds            closed bounds [lower, upper] per parameter name
      */
     public record ModelSpec(
             Family family,
@@ -64,19 +65,49 @@ public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec mod
             Optional<String> sdf,
             List<String> parameters,
             String payoff,
-            List<String> factorInstruments) {
+            List<String> factorInstruments,
+            Map<String, double[]> bounds) {
         public ModelSpec {
             factorColumns = List.copyOf(factorColumns);
             instrumentColumns = List.copyOf(instrumentColumns);
             startValues = Map.copyOf(startValues);
             parameters = List.copyOf(parameters);
             factorInstruments = List.copyOf(factorInstruments);
+            bounds = Map.copyOf(bounds);
         }
     }
 
-    /** Estimation choices ([estimation] section). */
+    /**
+     * Estimation choices ([estimation] section).
+     *
+     * @param restrictions     linear restrictions to test by Wald statistics, e.g. "b_SIZE = 0, b_TIDE = 0"
+     * @param confidenceLevel  level of the reported confidence intervals
+     * @param maxIterations    cap on the weight updates of iterated GMM
+     * @param hjSeed           seed of the simulated p-value of the Hansen-Jagannathan distance
+     * @param hjDraws          draws of that simulation
+     */
     public record EstimationSpec(EstimationMethod method, String initialWeight, Kernel kernel, BandwidthRule bandwidth,
-            boolean prewhiten, boolean centered) {
+            boolean prewhiten, boolean centered, List<String> restrictions, double confidenceLevel, int maxIterations,
+            long hjSeed, int hjDraws) {
+
+        public EstimationSpec {
+            restrictions = List.copyOf(restrictions);
+        }
+
+        /** The same choices with more restrictions to test. */
+        public EstimationSpec withRestrictions(List<String> more) {
+            List<String> all = new java.util.ArrayList<>(restrictions);
+            all.addAll(more);
+            return new EstimationSpec(method, initialWeight, kernel, bandwidth, prewhiten, centered, all, confidenceLevel,
+                    maxIterations, hjSeed, hjDraws);
+        }
+
+        /** The same choices with another method, kernel, bandwidth rule, prewhitening and centering. */
+        public EstimationSpec with(EstimationMethod newMethod, Kernel newKernel, BandwidthRule newBandwidth,
+                boolean newPrewhiten, boolean newCentered) {
+            return new EstimationSpec(newMethod, initialWeight, newKernel, newBandwidth, newPrewhiten, newCentered,
+                    restrictions, confidenceLevel, maxIterations, hjSeed, hjDraws);
+        }
 
         /** The long-run covariance options these choices imply. */
         public LongRunOptions longRunOptions() {
@@ -85,8 +116,7 @@ public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec mod
 
         /** The same choices with another long-run covariance estimator. */
         public EstimationSpec withLongRun(LongRunOptions options) {
-            return new EstimationSpec(method, initialWeight, options.kernel(), options.bandwidth(), options.prewhiten(),
-                    options.centered());
+            return with(method, options.kernel(), options.bandwidth(), options.prewhiten(), options.centered());
         }
 
         /** A human-readable bandwidth choice: "lags 4", "b = 5.0", "andrews", "newey-west". */
