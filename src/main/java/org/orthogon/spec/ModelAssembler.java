@@ -63,13 +63,14 @@ public final class ModelAssembler {
 
     /** The [model] keys each family reads; any other [model] key present is a mistake worth naming. */
     private static final Map<RunSpec.Family, List<String>> MODEL_KEYS_OF = Map.of(
-            RunSpec.Family.POWER_UTILITY, List.of("family", "consumption_column", "instrument_columns", "start_values"),
+            RunSpec.Family.POWER_UTILITY, List.of("family", "consumption_column", "instrument_columns", "start_values",
+                    "bounds"),
             RunSpec.Family.RECURSIVE_UTILITY, List.of("family", "consumption_column", "wealth_column",
-                    "instrument_columns", "start_values"),
+                    "instrument_columns", "start_values", "bounds"),
             RunSpec.Family.LINEAR_FACTOR, List.of("family", "factor_columns", "form", "factor_instruments",
-                    "instrument_columns", "start_values"),
+                    "instrument_columns", "start_values", "bounds"),
             RunSpec.Family.EXPRESSION, List.of("family", "sdf", "parameters", "payoff", "instrument_columns",
-                    "start_values"));
+                    "start_values", "bounds"));
 
     private void rejectKeysOfOtherFamilies() {
         RunSpec.Family family = spec.model().family();

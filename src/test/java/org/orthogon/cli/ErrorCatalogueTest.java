@@ -31,6 +31,7 @@ class ErrorCatalogueTest {
     private static final String FACTORS = "lumen-factors-monthly.csv";
     private static final String PORTFOLIOS = "lumen-portfolios-monthly.csv";
     private static final String CONSUMPTION = "lumen-consumption-quarterly.csv";
+    private static final String EXPRESSION = "lumen-expression-power.toml";
 
     @TempDir
     Path root;
@@ -43,6 +44,13 @@ class ErrorCatalogueTest {
     @FunctionalInterface
     interface Setup {
         void apply(CliHarness cli) throws IOException;
+
+        default Setup andThen(Setup next) {
+            return cli -> {
+                apply(cli);
+                next.apply(cli);
+            };
+        }
     }
 
     private static Case refused(String id, String model, Setup setup, String file, int line, String... mentions) {
@@ -214,6 +222,25 @@ class ErrorCatalogueTest {
                 15, "gama", "did you mean \"gamma\""));
         cases.add(refused("family-key-of-another-family", THREE, replaceInModel(THREE, "[estimation]",
                 "consumption_column = \"cons_growth\"\n\n[estimation]"), THREE, 0, "not used by the linear-factor family"));
+        cases.add(refused("start-values-outside-bounds", POWER, replaceInModel(POWER, "[estimation]",
+                "bounds = { gamma = [0.0, 50.0] }\n\n[estimation]").andThen(replaceInModel(POWER, "gamma = 2.0",
+                "gamma = -1.0")), POWER, 15, "outside its bounds"));
+        cases.add(refused("json-path-is-a-folder", POWER, cli -> Files.createDirectories(cli.root.resolve("results.json")),
+                "results.json", 0, "folder"));
+        cases.add(withArgs(refused("output-folder-is-a-file", POWER, cli -> Files.writeString(cli.root.resolve("report"), "x"),
+                "report", 0, "file"), "--out", "{root}/report"));
+        cases.add(withArgs(refused("output-folder-holds-report", POWER, cli -> {
+            Files.createDirectories(cli.root.resolve("report"));
+            Files.writeString(cli.root.resolve("report/report.html"), "<html></html>");
+        }, "report", 0, "--overwrite"), "--out", "{root}/report"));
+        cases.add(refused("bounds-unknown-parameter", POWER, replaceInModel(POWER, "[estimation]",
+                "bounds = { gama = [0.0, 50.0] }\n\n[estimation]"), POWER, 17, "did you mean \"gamma\""));
+        cases.add(refused("expression-unknown-name", EXPRESSION, replaceInModel(EXPRESSION, "cons_growth^(-gamma)",
+                "cons_grwth^(-gamma)"), EXPRESSION, 14, "cons_grwth", "did you mean \"cons_growth\""));
+        cases.add(refused("expression-syntax-error", EXPRESSION, replaceInModel(EXPRESSION, "cons_growth^(-gamma)",
+                "cons_growth^(-gamma"), EXPRESSION, 14, "sdf formula"));
+        cases.add(refused("restriction-unknown-parameter", THREE, replaceInModel(THREE, "lags = 4",
+                "lags = 4\nrestrictions = [\"b_SIZ = 0\"]"), THREE, 21, "b_SIZ"));
         // Command line
         cases.add(withArgs(refused("unknown-method-option", POWER, cli -> { }, "three-step", 0, "one-step"), "--method",
                 "three-step"));
@@ -235,7 +262,7 @@ class ErrorCatalogueTest {
         Path json = caseRoot.resolve("results.json");
         List<String> args = new ArrayList<>(List.of("fit", cli.models.resolve(c.model()).normalize().toString(), "--json",
                 json.toString()));
-        args.addAll(c.extraArgs());
+        c.extraArgs().forEach(arg -> args.add(arg.replace("{root}", caseRoot.toString())));
         CliHarness.Result result = cli.run(args.toArray(String[]::new));
         if (c.exit() == Main.EXIT_OK) {
             assertThat(result.code()).as("%s is accepted: %s", c.id(), result.err()).isZero();
@@ -256,7 +283,7 @@ class ErrorCatalogueTest {
             assertThat(err).as(c.id()).contains(mention);
         }
         assertThat(result.out()).as(c.id()).isEmpty();
-        assertThat(json).as("%s writes no output", c.id()).doesNotExist();
+        assertThat(Files.isRegularFile(json)).as("%s writes no output", c.id()).isFalse();
         if (System.getProperty("orthogon.printCatalogue") != null) {
             System.out.println("CATALOGUE " + c.id() + " | " + err.replace(caseRoot.toString(), "").replace("\n", " / "));
         }
