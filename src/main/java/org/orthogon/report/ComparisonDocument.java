@@ -78,16 +78,22 @@ public final class ComparisonDocument {
 
     static Table tests(List<ModelSummary> models) {
         Table.Builder table = Table.builder("comparison-tests", "Overidentification and cross-sectional fit",
-                "model", "test", "statistic", "df", "p-value", "cross-sectional R2", "mean |alpha|", "RMS alpha");
+                "model", "test", "statistic", "df", "p-value", "HJ distance", "HJ p-value", "cross-sectional R2",
+                "mean |alpha|", "RMS alpha");
         for (int m = 0; m < models.size(); m++) {
             ModelSummary summary = models.get(m);
             ChiSquareTest test = summary.fit().overidentification();
             CrossSectionFit cross = summary.crossSection();
             table.row(Cell.text("(" + (m + 1) + ")"), Cell.text(test.kind()), Cell.fixed(test.statistic(), 3),
-                    Cell.count(test.df()), Cell.fixed(test.pValue(), 4), Cell.fixed(cross.r2(), 4),
+                    Cell.count(test.df()), Cell.fixed(test.pValue(), 4),
+                    summary.fit().hj().map(h -> Cell.number(h.value())).orElse(Cell.text("n/a")),
+                    summary.fit().hj().map(h -> Cell.fixed(h.pValue(), 4)).orElse(Cell.text("n/a")),
+                    Cell.fixed(cross.r2(), 4),
                     Cell.number(cross.meanAbsolute()), Cell.number(cross.rootMeanSquare()));
         }
-        return table.note("alpha: the pricing error in expected-return units, (E_T[m x] - price) / E_T[m]; R2 = 1 - "
+        return table.note("HJ distance: min over the parameters of sqrt(g' G^{-1} g), G the second moments of the "
+                + "payoffs (Hansen and Jagannathan 1997); p-value from its simulated weighted chi-square limit.")
+                .note("alpha: the pricing error in expected-return units, (E_T[m x] - price) / E_T[m]; R2 = 1 - "
                 + "Var(alpha) / Var(realised mean) across the test assets.").build();
     }
 

@@ -42,6 +42,8 @@ public final class ComparisonReport {
         table.row(column(models, "overidentification", s -> ConsoleReport.fixed(s.fit().overidentification().statistic(), 3)));
         table.row(column(models, "  degrees of freedom", s -> Integer.toString(s.fit().overidentification().df())));
         table.row(column(models, "  p-value", s -> ConsoleReport.fixed(s.fit().overidentification().pValue(), 4)));
+        table.row(column(models, "HJ distance", s -> s.fit().hj().map(h -> ConsoleReport.number(h.value())).orElse("n/a")));
+        table.row(column(models, "  p-value", s -> s.fit().hj().map(h -> ConsoleReport.fixed(h.pValue(), 4)).orElse("n/a")));
         table.row(column(models, "cross-sectional R2", s -> ConsoleReport.fixed(s.crossSection().r2(), 4)));
         table.row(column(models, "mean |alpha|", s -> ConsoleReport.number(s.crossSection().meanAbsolute())));
         table.row(column(models, "RMS alpha", s -> ConsoleReport.number(s.crossSection().rootMeanSquare())));

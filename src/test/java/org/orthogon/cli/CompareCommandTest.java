@@ -25,6 +25,9 @@ class CompareCommandTest {
         assertThat(node.get("models")).hasSize(2);
         assertThat(node.at("/models/0/cross_sectional_r2").isNumber()).isTrue();
         assertThat(node.at("/models/1/rms_pricing_error").asDouble()).isPositive();
+        // The market-only SDF leaves priced risk unexplained, so its HJ distance exceeds the true model's.
+        assertThat(node.at("/models/1/hj_distance/value").asDouble())
+                .isGreaterThan(node.at("/models/0/hj_distance/value").asDouble());
         JsonNode nested = node.at("/nested_tests/0");
         assertThat(nested.get("restricted").asString()).isEqualTo("Market-only SDF on the Lumen portfolios");
         assertThat(nested.get("df").asInt()).isEqualTo(2);
