@@ -7,6 +7,7 @@ import org.orthogon.gmm.GmmDiagnostics;
 import org.orthogon.gmm.GmmFit;
 import org.orthogon.gmm.ParameterEstimate;
 import org.orthogon.gmm.PricingError;
+import org.orthogon.longrun.LongRunCovariance;
 import org.orthogon.spec.FittedRun;
 import org.orthogon.spec.RunSpec;
 import org.orthogon.spec.SampleInfo;
@@ -47,6 +48,10 @@ public final class JsonResults {
         number(longRun, "bandwidth", fit.longRun().bandwidth());
         longRun.put("prewhitened", fit.longRun().prewhitened());
         longRun.put("centered", fit.longRun().centered());
+        // T/(T-P) is reported but not applied: DESIGN.md keeps the small-sample factor off by default.
+        longRun.put("small_sample_adjusted", false);
+        number(longRun, "small_sample_factor", LongRunCovariance.smallSampleFactor(fit.observations(),
+                fit.parameters().size()));
         ArrayNode parameters = root.putArray("parameters");
         List<ConfidenceInterval> intervals = fit.confidenceIntervals();
         for (int i = 0; i < fit.parameters().size(); i++) {
