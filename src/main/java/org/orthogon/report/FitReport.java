@@ -5,6 +5,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import org.orthogon.gmm.ChiSquareTest;
+import org.orthogon.gmm.ConfidenceInterval;
 import org.orthogon.gmm.GmmFit;
 import org.orthogon.gmm.ParameterEstimate;
 import org.orthogon.gmm.PricingError;
@@ -61,11 +62,15 @@ public final class FitReport {
 
     /** The parameter table, standard errors under the estimates. */
     public static Table parameters(GmmFit fit) {
+        String level = String.format(Locale.ROOT, "%.0f%%", 100 * fit.confidenceLevel());
         Table.Builder table = Table.builder("parameters", "Parameter estimates", "parameter", "estimate",
-                "std. error", "t-stat", "p-value").errorUnder("estimate", "std. error");
-        for (ParameterEstimate p : fit.parameters()) {
+                "std. error", "t-stat", "p-value", level + " low", level + " high").errorUnder("estimate", "std. error");
+        List<ConfidenceInterval> intervals = fit.confidenceIntervals();
+        for (int i = 0; i < fit.parameters().size(); i++) {
+            ParameterEstimate p = fit.parameters().get(i);
             table.row(Cell.text(p.name()), Cell.number(p.estimate()), Cell.number(p.stdError()),
-                    Cell.fixed(p.tStat(), 2), Cell.fixed(p.pValue(), 4));
+                    Cell.fixed(p.tStat(), 2), Cell.fixed(p.pValue(), 4), Cell.number(intervals.get(i).lower()),
+                    Cell.number(intervals.get(i).upper()));
         }
         ChiSquareTest over = fit.overidentification();
         return table.note("Standard errors in parentheses; p-values two-sided against zero, normal approximation.")
@@ -87,8 +92,13 @@ public final class FitReport {
             table.row(Cell.text(testName(joint)), Cell.fixed(joint.statistic(), 3), Cell.count(joint.df()),
                     Cell.fixed(joint.pValue(), 4));
         }
-        return table.note("p-values from the chi-square distribution with K - P degrees of freedom, a large-sample "
-                + "approximation.").build();
+        fit.hj().ifPresent(hj -> table.row(Cell.text("Hansen-Jagannathan distance"), Cell.number(hj.value()),
+                Cell.text(""), Cell.fixed(hj.pValue(), 4)));
+        table.note("p-values from the chi-square distribution with K - P degrees of freedom, a large-sample "
+                + "approximation.");
+        fit.hj().ifPresent(hj -> table.note(String.format(Locale.ROOT, "Hansen-Jagannathan distance: p-value from "
+                + "its simulated weighted chi-square limit (seed %d, %d draws).", hj.seed(), hj.draws())));
+        return table.build();
     }
 
     private static String testName(ChiSquareTest test) {
