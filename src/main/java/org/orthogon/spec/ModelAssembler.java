@@ -18,6 +18,10 @@ import org.orthogon.data.Period;
 import org.orthogon.data.ReturnKind;
 import org.orthogon.data.ReturnTransforms;
 import org.orthogon.data.SeriesTable;
+import org.orthogon.data.SectionedTables;
+import org.orthogon.data.SeriesTransforms;
+import org.orthogon.data.TableWithNotes;
+import org.orthogon.data.TwoColumnSeries;
 import org.orthogon.data.Units;
 import org.orthogon.moments.DemeanedFactorErrors;
 import org.orthogon.moments.ExpressionSdfErrors;
@@ -63,10 +67,10 @@ public final class ModelAssembler {
 
     /** The [model] keys each family reads; any other [model] key present is a mistake worth naming. */
     private static final Map<RunSpec.Family, List<String>> MODEL_KEYS_OF = Map.of(
-            RunSpec.Family.POWER_UTILITY, List.of("family", "consumption_column", "instrument_columns", "start_values",
-                    "bounds"),
-            RunSpec.Family.RECURSIVE_UTILITY, List.of("family", "consumption_column", "wealth_column",
-                    "instrument_columns", "start_values", "bounds"),
+            RunSpec.Family.POWER_UTILITY, List.of("family", "consumption_column", "consumption_level_column",
+                    "population_column", "price_column", "instrument_columns", "start_values", "bounds"),
+            RunSpec.Family.RECURSIVE_UTILITY, List.of("family", "consumption_column", "consumption_level_column",
+                    "population_column", "price_column", "wealth_column", "instrument_columns", "start_values", "bounds"),
             RunSpec.Family.LINEAR_FACTOR, List.of("family", "factor_columns", "form", "factor_instruments",
                     "instrument_columns", "start_values", "bounds"),
             RunSpec.Family.EXPRESSION, List.of("family", "sdf", "parameters", "payoff", "instrument_columns",
@@ -249,17 +253,54 @@ public final class ModelAssembler {
         return finish(errors, aligned, startValues(parameters, Map.of()));
     }
 
+    /** Name of the growth series the Euler equations use: the given column, or the one built from levels. */
     private String consumptionColumn() {
-        return spec.model().consumptionColumn().orElseThrow(() -> missingKey("model", "consumption_column",
+        RunSpec.ModelSpec model = spec.model();
+        if (model.consumptionColumn().isPresent() && model.consumptionLevelColumn().isPresent()) {
+            throw InputException.in(spec.modelFile()).line(spec.lineOf("model", "consumption_level_column"))
+                    .problem("both consumption_column (growth) and consumption_level_column (levels) are given",
+                            "keep one: growth C_t/C_{t-1} in consumption_column, or levels in consumption_level_column");
+        }
+        if (model.consumptionLevelColumn().isPresent()) {
+            return GROWTH_FROM_LEVELS;
+        }
+        if (model.populationColumn().isPresent() || model.priceColumn().isPresent()) {
+            throw InputException.in(spec.modelFile()).line(spec.lineOf("model",
+                    model.populationColumn().isPresent() ? "population_column" : "price_column"))
+                    .problem("population_column and price_column apply to consumption levels, but no "
+                            + "consumption_level_column is given", "add consumption_level_column = \"...\" under [model]");
+        }
+        return model.consumptionColumn().orElseThrow(() -> missingKey("model", "consumption_column",
                 "the " + spec.model().family().id() + " family needs consumption growth",
-                "add consumption_column = \"cons_growth\" under [model] (gross growth C_t/C_{t-1})"));
+                "add consumption_column = \"cons_growth\" under [model] (gross growth C_t/C_{t-1}), or "
+                        + "consumption_level_column for levels"));
     }
+
+    /** Name of the growth column built from consumption levels. */
+    private static final String GROWTH_FROM_LEVELS = "cons_growth_from_levels";
 
     private SeriesTable readConsumption(String consumptionColumn) {
         Path macroFile = spec.data().macro().orElseThrow(() -> missingKey("data", "macro",
-                "the " + spec.model().family().id() + " family needs a macro file with consumption growth",
+                "the " + spec.model().family().id() + " family needs a macro file with consumption",
                 "add macro = \"path/to/consumption.csv\" under [data]"));
-        SeriesTable macro = select("consumption_column", readTable("macro", macroFile), List.of(consumptionColumn));
+        SeriesTable macro;
+        if (consumptionColumn.equals(GROWTH_FROM_LEVELS)) {
+            RunSpec.ModelSpec model = spec.model();
+            SeriesTable levels = readTable("macro", macroFile);
+            List<String> needed = new ArrayList<>(List.of(model.consumptionLevelColumn().get()));
+            model.populationColumn().ifPresent(needed::add);
+            model.priceColumn().ifPresent(needed::add);
+            select("consumption_level_column", levels, needed);
+            TableWithNotes growth = SeriesTransforms.perCapitaGrowth(levels, model.consumptionLevelColumn().get(),
+                    model.populationColumn().orElse(null), model.priceColumn().orElse(null), GROWTH_FROM_LEVELS);
+            notes.add("consumption growth built from the levels in " + macroFile.getFileName()
+                    + (model.populationColumn().isPresent() ? ", per capita" : "")
+                    + (model.priceColumn().isPresent() ? ", deflated" : ""));
+            notes.addAll(growth.notes());
+            macro = growth.table();
+        } else {
+            macro = select("consumption_column", readTable("macro", macroFile), List.of(consumptionColumn));
+        }
         ColumnChecks.requireVarying(macro, "consumption");
         return macro;
     }
@@ -286,12 +327,23 @@ public final class ModelAssembler {
         ReturnsWithRate returns = readReturnsWithRate();
         SeriesTable gross = ReturnTransforms.toGross(returns.returns(), ReturnKind.fromId(spec.data().returnsKind()),
                 returns.riskfreeGross());
+        Optional<SeriesTable> deflator = readDeflator();
+        if (deflator.isPresent() && deflator.get().frequency() == gross.frequency()) {
+            gross = deflate(gross, deflator.get());
+            deflator = Optional.empty();
+        }
         if (gross.frequency().isFinerThan(other.frequency())) {
             CompoundedSeries compounded = ReturnTransforms.compound(gross, other.frequency());
             notes.add(gross.frequency().id() + " returns compounded to " + other.frequency().id()
                     + " to match " + other.source().getFileName());
             notes.addAll(compounded.notes());
-            return compounded.table();
+            gross = compounded.table();
+        }
+        if (deflator.isPresent()) {
+            gross = deflate(gross, deflator.get());
+        }
+        if (gross.frequency() == other.frequency()) {
+            return gross;
         }
         if (other.frequency().isFinerThan(gross.frequency())) {
             throw InputException.in(other.source()).problem(other.source().getFileName() + " is "
@@ -301,9 +353,47 @@ public final class ModelAssembler {
         return gross;
     }
 
+    private Optional<SeriesTable> readDeflator() {
+        if (spec.data().deflator().isEmpty()) {
+            if (spec.data().deflatorColumn().isPresent()) {
+                throw missingKey("data", "deflator_column", "deflator_column is given but no deflator file",
+                        "add deflator = \"path/to/deflator.csv\" under [data]");
+            }
+            return Optional.empty();
+        }
+        SeriesTable table = readTable("deflator", spec.data().deflator().get());
+        String column = spec.data().deflatorColumn().orElseGet(() -> {
+            if (table.columnNames().size() != 1) {
+                throw missingKey("data", "deflator", "the deflator file has " + table.columnNames().size()
+                        + " columns and no deflator_column says which is the price level",
+                        "add deflator_column = \"" + table.columnNames().get(0) + "\" under [data]");
+            }
+            return table.columnNames().get(0);
+        });
+        return Optional.of(select("data", "deflator_column", table, List.of(column)));
+    }
+
+    /** Nominal gross returns to real ones with the deflator P: R_real = R P_{t-1} / P_t. */
+    private SeriesTable deflate(SeriesTable gross, SeriesTable deflator) {
+        if (!deflator.frequency().equals(gross.frequency())) {
+            throw InputException.in(deflator.source()).problem("the deflator is " + deflator.frequency().id()
+                    + " but the returns are " + gross.frequency().id() + " after compounding",
+                    "give the deflator at the frequency of the returns or of the macro series");
+        }
+        TableWithNotes real = SeriesTransforms.realReturns(gross, deflator, deflator.columnNames().get(0));
+        notes.add("returns deflated to real returns with " + deflator.source().getFileName());
+        notes.addAll(real.notes());
+        return real.table();
+    }
+
     /** The test assets as excess returns: as given, or net/gross minus the risk-free rate. */
     private SeriesTable excessReturns(String why) {
         RunSpec.DataSpec data = spec.data();
+        if (data.deflator().isPresent()) {
+            throw InputException.in(spec.modelFile()).line(spec.lineOf("data", "deflator"))
+                    .problem(why + "; a deflator applies to gross returns, and an excess return needs none (the "
+                            + "price level cancels)", "remove deflator, or price gross returns");
+        }
         ReturnKind kind = ReturnKind.fromId(data.returnsKind());
         if (kind == ReturnKind.EXCESS) {
             return readReturns();
@@ -426,7 +516,19 @@ public final class ModelAssembler {
         notes.addAll(sample.notes());
         List<Period> dates = sample.dates();
         Frequency frequency = assets.frequency();
+        for (String name : spec.data().instrumentLags().keySet()) {
+            if (!instrumentColumns.contains(name) || name.equals(CONSTANT_INSTRUMENT)) {
+                throw InputException.in(spec.modelFile()).line(spec.lineOf("data", "instrument_lags"))
+                        .problem("instrument_lags names \"" + name + "\", which is not an instrument column of this model",
+                                "use the instrument columns " + instrumentColumns.stream()
+                                        .filter(c -> !c.equals(CONSTANT_INSTRUMENT)).toList()
+                                        + Suggestions.didYouMean(name, instrumentColumns));
+            }
+        }
         int lag = instrumentColumns.isEmpty() ? 0 : 1;
+        for (int declared : spec.data().instrumentLags().values()) {
+            lag = Math.max(lag, declared);
+        }
         int first = lag;
         int last = dates.size() - 1;
         if (spec.data().start().isPresent()) {
@@ -444,9 +546,10 @@ public final class ModelAssembler {
                             "correct start and end under [data]");
         }
         if (lag > 0 && spec.data().start().isEmpty()) {
-            notes.add("instruments are lagged one period, so the moments start at " + dates.get(first).label());
+            notes.add("instruments are lagged " + (lag == 1 ? "one period" : "up to " + lag + " periods")
+                    + ", so the moments start at " + dates.get(first).label());
         }
-        return new Aligned(sample, first, last, lag, instrumentColumns);
+        return new Aligned(sample, first, last, lag, instrumentColumns, spec.data().instrumentLags());
     }
 
     private int boundIndex(String key, Period bound, List<Period> dates, int lag) {
@@ -526,9 +629,35 @@ public final class ModelAssembler {
             throw InputException.in(spec.modelFile()).line(spec.lineOf("data", key))
                     .problem(key + " names a folder, not a file: " + file, "give the path of a CSV file");
         }
-        SeriesTable table = CsvSeries.read(file);
+        SeriesTable table;
+        if (key.equals("returns") && spec.data().returnsTable().isPresent()) {
+            TableWithNotes section = SectionedTables.read(file, spec.data().returnsTable().get());
+            notes.add("returns read from the table \"" + spec.data().returnsTable().get() + "\" of " + file.getFileName());
+            notes.addAll(section.notes());
+            table = section.table();
+        } else if (isTwoColumnWithMissing(file)) {
+            TableWithNotes series = TwoColumnSeries.read(file, null);
+            notes.addAll(series.notes());
+            table = series.table();
+        } else {
+            table = CsvSeries.read(file);
+        }
         inputs.add(InputSummary.of(key, table));
         return table;
+    }
+
+    /**
+     * A date,value file that marks missing values with "." or an empty cell, which {@link TwoColumnSeries}
+     * accepts at the edges of the sample; any other file is read strictly by {@link CsvSeries}.
+     */
+    private static boolean isTwoColumnWithMissing(Path file) {
+        try (var lines = java.nio.file.Files.lines(file, java.nio.charset.StandardCharsets.UTF_8)) {
+            List<String> rows = lines.map(String::strip).filter(line -> !line.isEmpty()).toList();
+            return !rows.isEmpty() && rows.stream().allMatch(line -> line.split(",", -1).length == 2)
+                    && rows.stream().skip(1).anyMatch(line -> line.endsWith(",.") || line.endsWith(","));
+        } catch (java.io.IOException | java.io.UncheckedIOException e) {
+            return false; // the strict reader then reports why the file cannot be read
+        }
     }
 
     private SeriesTable select(String modelKey, SeriesTable table, List<String> names) {
@@ -590,7 +719,8 @@ public final class ModelAssembler {
      * The aligned tables (assets first, then the other series, then the instruments if any) and the
      * row range [first, last] of the moments; instruments are read one row earlier.
      */
-    private record Aligned(AlignedSample sample, int first, int last, int lag, List<String> instrumentColumns) {
+    private record Aligned(AlignedSample sample, int first, int last, int lag, List<String> instrumentColumns,
+            Map<String, Integer> instrumentLags) {
         int observations() {
             return last - first + 1;
         }
@@ -619,7 +749,7 @@ public final class ModelAssembler {
                 String name = names.get(j);
                 double[] column = name.equals(CONSTANT_INSTRUMENT) ? null : file.column(name);
                 for (int t = 0; t < rows.length; t++) {
-                    rows[t][j] = column == null ? 1.0 : column[first + t - lag];
+                    rows[t][j] = column == null ? 1.0 : column[first + t - instrumentLags.getOrDefault(name, 1)];
                 }
             }
             return rows;

@@ -39,10 +39,11 @@ import tools.jackson.dataformat.toml.TomlMapper;
 public final class ModelFile {
     private static final Set<String> TOP_LEVEL = Set.of("title", "data", "model", "estimation", "stability");
     private static final List<String> DATA_KEYS = List.of("returns", "assets", "returns_kind", "units", "riskfree",
-            "riskfree_column", "factors", "macro", "instruments", "wealth", "start", "end");
+            "riskfree_column", "factors", "macro", "instruments", "wealth", "start", "end", "returns_table", "deflator",
+            "deflator_column", "instrument_lags");
     private static final List<String> MODEL_KEYS = List.of("family", "consumption_column", "factor_columns",
             "instrument_columns", "start_values", "form", "wealth_column", "sdf", "parameters", "payoff",
-            "factor_instruments", "bounds");
+            "factor_instruments", "bounds", "consumption_level_column", "population_column", "price_column");
     private static final List<String> FORMS = List.of("excess", "demeaned", "gross");
     private static final List<String> PAYOFFS = List.of("gross", "excess");
     private static final List<String> ESTIMATION_KEYS = List.of("method", "initial_weight", "kernel", "bandwidth",
@@ -180,7 +181,11 @@ public final class ModelFile {
                 optionalPath(data, "instruments"),
                 optionalPath(data, "wealth"),
                 optionalString("data", data, "start"),
-                optionalString("data", data, "end"));
+                optionalString("data", data, "end"),
+                data.has("returns_table") ? Optional.of(data.get("returns_table").asString()) : Optional.empty(),
+                optionalPath(data, "deflator"),
+                optionalString("data", data, "deflator_column"),
+                instrumentLags(data));
     }
 
     private ModelSpec parseModel(JsonNode model) {
@@ -220,7 +225,10 @@ public final class ModelFile {
                 stringList("model", model, "parameters"),
                 choice("model", model, "payoff", PAYOFFS, "gross"),
                 stringList("model", model, "factor_instruments"),
-                bounds(model));
+                bounds(model),
+                optionalString("model", model, "consumption_level_column"),
+                optionalString("model", model, "population_column"),
+                optionalString("model", model, "price_column"));
     }
 
     private EstimationSpec parseEstimation(JsonNode estimation) {
@@ -274,6 +282,29 @@ public final class ModelFile {
                     "write " + example);
         }
         return value.asInt();
+    }
+
+    /** [data] instrument_lags = { z_cons = 2 }: how many periods each instrument is lagged (default 1). */
+    private Map<String, Integer> instrumentLags(JsonNode data) {
+        Map<String, Integer> lags = new LinkedHashMap<>();
+        if (!data.has("instrument_lags")) {
+            return lags;
+        }
+        JsonNode table = data.get("instrument_lags");
+        if (!table.isObject()) {
+            throw error("data", "instrument_lags", "instrument_lags must be a table of whole numbers",
+                    "write instrument_lags = { z_cons = 2 } (an instrument must be known before the period it scales)");
+        }
+        for (Map.Entry<String, JsonNode> entry : table.properties()) {
+            JsonNode value = entry.getValue();
+            if (!value.isIntegralNumber() || value.asInt() < 1) {
+                throw error("data", "instrument_lags", "the lag of " + entry.getKey() + " must be a whole number >= 1 "
+                        + "(a lead would use information not yet known), found " + value,
+                        "write " + entry.getKey() + " = 1 or more");
+            }
+            lags.put(entry.getKey(), value.asInt());
+        }
+        return lags;
     }
 
     /** [model] bounds = { beta = [0.0, 2.0] }: closed bounds per parameter, checked later against the family. */

@@ -39,7 +39,15 @@ public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec mod
             Optional<Path> instruments,
             Optional<Path> wealth,
             Optional<String> start,
-            Optional<String> end) {
+            Optional<String> end,
+            Optional<String> returnsTable,
+            Optional<Path> deflator,
+            Optional<String> deflatorColumn,
+            Map<String, Integer> instrumentLags) {
+        public DataSpec {
+            assets = List.copyOf(assets);
+            instrumentLags = Map.copyOf(instrumentLags);
+        }
     }
 
     /**
@@ -53,6 +61,9 @@ public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec mod
      * @param payoff            expression: "gross" (E[m R] = 1) or "excess" (E[m R^e] = 0)
      * @param factorInstruments linear-factor: instruments that scale the factors, F_t ⊗ z_{t-1}
      * @param bounds            closed bounds [lower, upper] per parameter name
+     * @param consumptionLevelColumn power/recursive utility: consumption levels instead of growth
+     * @param populationColumn  with levels: population, for per-capita growth
+     * @param priceColumn       with levels: a price level, for real growth of nominal consumption
      */
     public record ModelSpec(
             Family family,
@@ -66,7 +77,10 @@ public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec mod
             List<String> parameters,
             String payoff,
             List<String> factorInstruments,
-            Map<String, double[]> bounds) {
+            Map<String, double[]> bounds,
+            Optional<String> consumptionLevelColumn,
+            Optional<String> populationColumn,
+            Optional<String> priceColumn) {
         public ModelSpec {
             factorColumns = List.copyOf(factorColumns);
             instrumentColumns = List.copyOf(instrumentColumns);
