@@ -47,7 +47,7 @@ public class GmmBenchmark {
     static final int MONTHS = 1200;
 
     MomentModel hundredAssets;
-    GmmOptions twoStepBartlett;
+    GmmOptions secondStepBartlett;
     PreparedRun powerUtility;
     GmmOptions iterated;
 
@@ -75,7 +75,7 @@ public class GmmBenchmark {
         }
         hundredAssets = ScaledMoments.unscaled(new LinearFactorErrors(excess, sample.factors(), names,
                 economy.factorNames()));
-        twoStepBartlett = new GmmOptions(EstimationMethod.TWO_STEP, LongRunOptions.bartlettLags(12));
+        secondStepBartlett = new GmmOptions(EstimationMethod.TWO_STEP, LongRunOptions.bartlettLags(12));
 
         RunSpec spec = ModelFile.read(Path.of("models/lumen-power-utility.toml"));
         powerUtility = ModelAssembler.prepare(spec);
@@ -84,7 +84,7 @@ public class GmmBenchmark {
 
     @Benchmark
     public GmmFit twoStepHundredAssetsBartlett12() {
-        return GmmEstimator.estimate(hundredAssets, new double[3], twoStepBartlett);
+        return GmmEstimator.estimate(hundredAssets, new double[3], secondStepBartlett);
     }
 
     @Benchmark

@@ -143,17 +143,17 @@ public final class GmmEstimator {
                     break;
                 }
                 weight = efficientWeight(model, theta, longRunOptions, "S at the first-step estimate");
-                WeightedMinimizer.Minimum twoStep = WeightedMinimizer.minimize(model, weight, theta, bounds);
-                requireConverged(twoStep, "two-step estimate that starts the continuously-updated search");
-                double[] scales = standardErrorScales(model, twoStep.theta(), longRunOptions);
-                ContinuouslyUpdated.Result cue = ContinuouslyUpdated.minimize(model, longRunOptions, twoStep.theta(),
+                WeightedMinimizer.Minimum secondStep = WeightedMinimizer.minimize(model, weight, theta, bounds);
+                requireConverged(secondStep, "two-step estimate that starts the continuously-updated search");
+                double[] scales = standardErrorScales(model, secondStep.theta(), longRunOptions);
+                ContinuouslyUpdated.Result cue = ContinuouslyUpdated.minimize(model, longRunOptions, secondStep.theta(),
                         scales, bounds);
                 warnings.addAll(cue.notes());
                 if (!cue.converged() && cue.atBounds().isEmpty()) {
                     List<String> diagnostics = new ArrayList<>(cue.notes());
                     diagnostics.add("objective " + cue.objective());
                     diagnostics.add("θ " + Arrays.toString(cue.theta()));
-                    diagnostics.add("two-step estimate " + Arrays.toString(twoStep.theta()));
+                    diagnostics.add("two-step estimate " + Arrays.toString(secondStep.theta()));
                     throw new EstimationException("the continuously-updated search did not reach a minimum with a "
                             + "positive-definite curvature", diagnostics,
                             "use iterated or two-step GMM, or fewer moments: the continuously-updated objective "

@@ -20,10 +20,10 @@ import tools.jackson.databind.json.JsonMapper;
 /**
  * A real-data check of the power-utility two-step fit against an independent computation.
  *
- * <p>Data: the "macrodata" set of statsmodels (US quarterly macro series 1959Q1-2009Q3 from FRED and
- * BLS, public domain), as shipped by the Debian package python3-statsmodels, version 0.13.5+dfsg-7
- * (file /usr/lib/python3/dist-packages/statsmodels/datasets/macrodata/macrodata.csv). The script
- * src/test/resources/reference/realdata/macrodata_power_utility.R (run with Debian r-base-core
+ * <p>Data: the data set USMacroG of the R package AER 1.2-10 (US quarterly macroeconomic series
+ * 1950Q1-2000Q4: real consumption, population, consumer prices, 3-month T-bill rate), as shipped by
+ * the Debian package r-cran-aer, version 1.2-10-1. The script
+ * src/test/resources/reference/realdata/usmacro_power_utility.R (run with Debian r-base-core
  * 4.2.2.20221110-2) builds gross real per-capita consumption growth, the gross real 3-month T-bill
  * return and the instrument file from it, and computes the two-step estimates, standard errors and
  * J in base R from the formulas of DESIGN.md section 3, sharing no code with Orthogon. The generated
@@ -56,7 +56,7 @@ class RealDataCheckTest {
     void checkAcceptsTheModelFile() throws Exception {
         CliHarness.Result result = run("check", modelFile().toString());
         assertThat(result.code()).as(result.err()).isZero();
-        assertThat(result.out()).contains("T = 201").contains("K = 3 moments");
+        assertThat(result.out()).contains("T = 202").contains("K = 3 moments");
     }
 
     private JsonNode fit(String name, String... options) throws Exception {
@@ -72,8 +72,8 @@ class RealDataCheckTest {
     private static void assertMatches(JsonNode fit, Map<String, String> expected) {
         assertThat(fit.get("family").asString()).isEqualTo("power-utility");
         assertThat(fit.get("method").asString()).isEqualTo("two-step");
-        assertThat(fit.at("/sample/start").asString()).isEqualTo("1959Q3");
-        assertThat(fit.at("/sample/end").asString()).isEqualTo("2009Q3");
+        assertThat(fit.at("/sample/start").asString()).isEqualTo("1950Q3");
+        assertThat(fit.at("/sample/end").asString()).isEqualTo("2000Q4");
         assertThat(fit.at("/sample/observations").asInt()).isEqualTo(Integer.parseInt(expected.get("observations")));
         assertThat(fit.at("/parameters/0/name").asString()).isEqualTo("beta");
         assertThat(fit.at("/parameters/1/name").asString()).isEqualTo("gamma");
@@ -94,7 +94,7 @@ class RealDataCheckTest {
 
     /** One row per choice of S, keyed by the kernel column. */
     private static Map<String, Map<String, String>> reference() throws IOException, URISyntaxException {
-        List<String> lines = Files.readAllLines(resource("macrodata_power_utility_values.csv"));
+        List<String> lines = Files.readAllLines(resource("usmacro_power_utility_values.csv"));
         String[] header = lines.get(0).split(",");
         Map<String, Map<String, String>> rows = new HashMap<>();
         for (String line : lines.subList(1, lines.size())) {
@@ -110,7 +110,7 @@ class RealDataCheckTest {
     }
 
     private static Path modelFile() throws URISyntaxException {
-        return resource("macrodata-power-utility.toml");
+        return resource("usmacro-power-utility.toml");
     }
 
     private static Path resource(String name) throws URISyntaxException {

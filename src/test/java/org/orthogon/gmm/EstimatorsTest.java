@@ -89,9 +89,9 @@ class EstimatorsTest {
                 .isCloseTo(plain.overidentification().statistic(), within(1e-8 * plain.overidentification().statistic()));
         assertThat(plain.diagnostics().clean()).isTrue();
 
-        GmmOptions twoStep = cue.withMethod(EstimationMethod.TWO_STEP);
-        double[] a = GmmEstimator.estimate(model, new double[3], twoStep).estimates();
-        double[] b = GmmEstimator.estimate(scaled, new double[3], twoStep).estimates();
+        GmmOptions secondStep = cue.withMethod(EstimationMethod.TWO_STEP);
+        double[] a = GmmEstimator.estimate(model, new double[3], secondStep).estimates();
+        double[] b = GmmEstimator.estimate(scaled, new double[3], secondStep).estimates();
         double largest = 0.0;
         for (int j = 0; j < 3; j++) {
             largest = Math.max(largest, Math.abs(a[j] - b[j]) / plain.parameters().get(j).stdError());
@@ -108,8 +108,8 @@ class EstimatorsTest {
         MomentModel model = LumenModels.linearSdf(10, 40, 7L);
         GmmOptions options = new GmmOptions(EstimationMethod.CONTINUOUSLY_UPDATED, HC);
         GmmFit cue = GmmEstimator.estimate(model, new double[3], options);
-        GmmFit twoStep = GmmEstimator.estimate(model, new double[3], options.withMethod(EstimationMethod.TWO_STEP));
-        double atTwoStep = ContinuouslyUpdated.objective(model, HC, twoStep.estimates());
+        GmmFit secondStep = GmmEstimator.estimate(model, new double[3], options.withMethod(EstimationMethod.TWO_STEP));
+        double atTwoStep = ContinuouslyUpdated.objective(model, HC, secondStep.estimates());
         assertThat(cue.overidentification().statistic()).isLessThanOrEqualTo(atTwoStep);
         assertThat(cue.overidentification().df()).isEqualTo(7);
     }

@@ -25,7 +25,7 @@ final class ReferenceData {
         }
     }
 
-    /** One bandwidth chosen by sandwich's bwAndrews or bwNeweyWest. */
+    /** One bandwidth chosen by sandwich's Andrews (1991) or Newey-West (1994) rule. */
     record Bandwidth(String rule, Kernel kernel, boolean centered, boolean prewhite, double value) {
         @Override
         public String toString() {

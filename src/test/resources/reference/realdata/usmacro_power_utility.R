@@ -2,48 +2,46 @@
 # on US quarterly macro data, written from the formulas in docs/methods.md and DESIGN.md section 3
 # without any of Orthogon's code and without any GMM package (base R only: optim, nlminb, solve).
 #
-# Source: the "macrodata" data set of statsmodels (statsmodels.datasets.macrodata, US quarterly data
-# 1959Q1-2009Q3 compiled from FRED and BLS, public domain), as shipped by the Debian package
-# python3-statsmodels, version 0.13.5+dfsg-7, at
-#   /usr/lib/python3/dist-packages/statsmodels/datasets/macrodata/macrodata.csv
+# Source: the data set USMacroG of the R package AER 1.2-10 (US quarterly macroeconomic series
+# 1950Q1-2000Q4 from the US Department of Commerce and the Federal Reserve, as published with Greene,
+# "Econometric Analysis"), as shipped by the Debian package r-cran-aer, version 1.2-10-1.
 #
 # Series written beside this script (Orthogon's wide CSV, dates YYYYQn, decimals):
-#   macrodata-consumption.csv  cons_growth_t = (realcons_t / pop_t) / (realcons_{t-1} / pop_{t-1}),
+#   usmacro-consumption.csv  cons_growth_t = (consumption_t / population_t) /
+#       (consumption_{t-1} / population_{t-1}), consumption being real consumption expenditures,
 #       gross growth of real per-capita consumption over quarter t, on the row of quarter t.
-#   macrodata-tbill.csv  tbill_t = (1 + tbilrate_{t-1} / 400) * cpi_{t-1} / cpi_t, the gross real
+#   usmacro-tbill.csv  tbill_t = (1 + tbill_{t-1} / 400) * cpi_{t-1} / cpi_t, the gross real
 #       return of holding the 3-month bill through quarter t. The nominal rate is the one quoted
 #       before the quarter starts: the data set carries only quarter averages, so the previous
 #       quarter's average stands in for the rate at the start of quarter t, which keeps the nominal
 #       payoff known in advance. The annual percent rate is divided by 400 (simple quarterly rate);
 #       cpi is end-of-quarter, so cpi_{t-1} / cpi_t deflates exactly over quarter t.
-#   macrodata-instruments.csv  z_growth_t = cons_growth_t, z_tbill_t = tbill_t on the row of quarter
+#   usmacro-instruments.csv  z_growth_t = cons_growth_t, z_tbill_t = tbill_t on the row of quarter
 #       t. Orthogon itself pairs instrument row t with the moment of t+1, so these are the lagged
 #       instruments of the Euler equation; "const" is Orthogon's built-in column of ones.
 #
-# Moments (K = 3, P = 2): f_t = (beta g_t^-gamma R_t - 1) (1, g_{t-1}, R_{t-1})', t = 1959Q3..2009Q3.
+# Moments (K = 3, P = 2): f_t = (beta g_t^-gamma R_t - 1) (1, g_{t-1}, R_{t-1})', t = 1950Q3..2000Q4.
 # Two-step GMM: W1 = I; S = centered long-run covariance at theta1, either Gamma_0 (kernel "none") or
 # Bartlett with L = 4 lags, S = Gamma_0 + sum_j (1 - j/(L+1)) (Gamma_j + Gamma_j'), Gamma_j =
 # (1/T) sum_t u_t u_{t-j}'; W2 = S(theta1)^-1; J = T g' W2 g at theta2; covariance
 # (D' S(theta2)^-1 D)^-1 / T with S re-evaluated at theta2.
 #
-# Run: Rscript macrodata_power_utility.R [path/to/macrodata.csv]
-# Writes the three data files and macrodata_power_utility_values.csv (17 significant digits).
+# Run (after apt-get install r-cran-aer): Rscript usmacro_power_utility.R
+# Writes the three data files and usmacro_power_utility_values.csv (17 significant digits).
 
-args <- commandArgs(trailingOnly = TRUE)
-source_csv <- if (length(args) >= 1) args[1] else
-  "/usr/lib/python3/dist-packages/statsmodels/datasets/macrodata/macrodata.csv"
 here <- tryCatch(dirname(normalizePath(sub("^--file=", "", grep("^--file=", commandArgs(FALSE), value = TRUE)))),
                  error = function(e) ".")
 
-raw <- read.csv(source_csv)
+data("USMacroG", package = "AER")
+raw <- as.data.frame(USMacroG)
 n <- nrow(raw)
-stopifnot(n == 203, raw$year[1] == 1959, raw$quarter[1] == 1, raw$year[n] == 2009, raw$quarter[n] == 3)
-label <- sprintf("%04dQ%d", raw$year, raw$quarter)
+stopifnot(n == 204, all(tsp(USMacroG) == c(1950, 2000.75, 4)))
+label <- sprintf("%04dQ%d", 1950 + (seq_len(n) - 1) %/% 4, (seq_len(n) - 1) %% 4 + 1)
 
-percap <- raw$realcons / raw$pop
+percap <- raw$consumption / raw$population
 growth <- percap[-1] / percap[-n]
-tbill <- (1 + raw$tbilrate[-n] / 400) * raw$cpi[-n] / raw$cpi[-1]
-dates <- label[-1]                     # 1959Q2 .. 2009Q3, 202 quarters
+tbill <- (1 + raw$tbill[-n] / 400) * raw$cpi[-n] / raw$cpi[-1]
+dates <- label[-1]                     # 1950Q2 .. 2000Q4, 203 quarters
 
 # 17 significant digits so that the files carry the doubles the script itself computes with.
 fmt <- function(x) sprintf("%.17g", x)
@@ -51,14 +49,14 @@ write_wide <- function(name, columns) {
   body <- do.call(paste, c(list(dates), lapply(columns, fmt), sep = ","))
   writeLines(c(paste(c("date", names(columns)), collapse = ","), body), file.path(here, name))
 }
-write_wide("macrodata-consumption.csv", list(cons_growth = growth))
-write_wide("macrodata-tbill.csv", list(tbill = tbill))
-write_wide("macrodata-instruments.csv", list(z_growth = growth, z_tbill = tbill))
+write_wide("usmacro-consumption.csv", list(cons_growth = growth))
+write_wide("usmacro-tbill.csv", list(tbill = tbill))
+write_wide("usmacro-instruments.csv", list(z_growth = growth, z_tbill = tbill))
 
 # Read back what was written, so the fit uses exactly the numbers Orthogon will read.
-g_all <- as.numeric(read.csv(file.path(here, "macrodata-consumption.csv"))$cons_growth)
-r_all <- as.numeric(read.csv(file.path(here, "macrodata-tbill.csv"))$tbill)
-inst <- read.csv(file.path(here, "macrodata-instruments.csv"))
+g_all <- as.numeric(read.csv(file.path(here, "usmacro-consumption.csv"))$cons_growth)
+r_all <- as.numeric(read.csv(file.path(here, "usmacro-tbill.csv"))$tbill)
+inst <- read.csv(file.path(here, "usmacro-instruments.csv"))
 m <- length(g_all)
 g <- g_all[-1]
 R <- r_all[-1]
@@ -182,5 +180,5 @@ for (lags in c(0, 4)) {
                                newton_step = sprintf("%.3g", max(abs(solve(hessian(theta2, W2), gradient(theta2, W2))))))
 }
 out <- do.call(rbind, rows)
-write.csv(out, file.path(here, "macrodata_power_utility_values.csv"), row.names = FALSE, quote = FALSE)
+write.csv(out, file.path(here, "usmacro_power_utility_values.csv"), row.names = FALSE, quote = FALSE)
 print(out, right = FALSE)
