@@ -150,7 +150,7 @@ for (id in c("bartlett", "quadratic-spectral")) for (cen in names(mom)) {
   S <- meatHAC(mom[[cen]], weights = wts, prewhite = 1, adjust = FALSE)
   add_case(sprintf("%s-bw5-pw1-%s", id, cen), id, "fixed", 5, cen == "centered", TRUE, S)
 }
-# The kernHAC default (QS, Andrews bandwidth, VAR(1) prewhitening) on the centered series,
+# sandwich's default HAC choice (QS, Andrews bandwidth, VAR(1) prewhitening) on the centered series,
 # cross-checked through lrvar() so the whole chain is confirmed by a second entry point.
 S_pw <- meatHAC(mom$centered, weights = weightsAndrews(mom$centered, bw = bwAndrews,
                 kernel = "Quadratic Spectral", prewhite = 1, weights = w_equal),
