@@ -36,17 +36,8 @@ final class CompareCommand implements Callable<Integer> {
     @Mixin
     EstimationOverrides overrides;
 
-    @Option(names = "--json", paramLabel = "FILE", description = "also write the comparison as JSON to FILE")
-    Path json;
-
     @Mixin
-    OutputFolderOptions output;
-
-    @Option(names = "--quiet", description = "print nothing on success")
-    boolean quiet;
-
-    @Option(names = "--debug", description = "show a stack trace when Orthogon itself fails")
-    boolean debug;
+    ResultOptions output;
 
     @picocli.CommandLine.Spec
     picocli.CommandLine.Model.CommandSpec commandSpec;
@@ -54,7 +45,7 @@ final class CompareCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         Instant started = Instant.now();
-        String folderName = "compare-" + modelFiles.stream().map(OutputFolderOptions::stem)
+        String folderName = "compare-" + modelFiles.stream().map(ResultOptions::stem)
                 .collect(java.util.stream.Collectors.joining("-"));
         output.checkEarly(folderName);
         List<FittedRun> runs = new ArrayList<>();
@@ -75,8 +66,8 @@ final class CompareCommand implements Callable<Integer> {
         List<ObjectNode> fits = runs.stream()
                 .map(run -> JsonResults.fit(run.spec(), run.prepared().sample(), run.fit())).toList();
         ObjectNode results = ComparisonReport.json(result, fits);
-        if (json != null) {
-            OutputFiles.writeAtomically(json, JsonResults.text(results));
+        if (output.json != null) {
+            OutputFiles.writeAtomically(output.json, JsonResults.text(results));
         }
         Path folder = null;
         if (output.requested()) {
@@ -86,7 +77,7 @@ final class CompareCommand implements Callable<Integer> {
                             Version.current(), started, Map.of()),
                     runs.stream().map(FittedRun::spec).toList(), runs.stream().map(run -> run.prepared().inputs()).toList());
         }
-        if (!quiet) {
+        if (!output.quiet) {
             commandSpec.commandLine().getOut().print(ComparisonReport.render(result, sampleLine));
             if (folder != null) {
                 commandSpec.commandLine().getOut().println("\nReport folder: " + CheckReport.display(folder));

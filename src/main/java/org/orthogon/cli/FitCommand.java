@@ -36,22 +36,13 @@ final class FitCommand implements Callable<Integer> {
     @Mixin
     EstimationOverrides overrides;
 
-    @Option(names = "--json", paramLabel = "FILE", description = "also write the results as JSON to FILE")
-    Path json;
-
     @Mixin
-    OutputFolderOptions output;
+    ResultOptions output;
 
     @Option(names = "--sensitivity", description = "also refit under every kernel and bandwidth choice of the "
             + "sensitivity grid (HC; Bartlett, Parzen, Tukey-Hanning lags 0-12; QS b = 1-13; Andrews and Newey-West "
             + "rules; with and without prewhitening) and flag verdicts that differ at 5%%")
     boolean sensitivity;
-
-    @Option(names = "--quiet", description = "print nothing on success (errors still go to standard error)")
-    boolean quiet;
-
-    @Option(names = "--debug", description = "show a stack trace when Orthogon itself fails")
-    boolean debug;
 
     @picocli.CommandLine.Spec
     picocli.CommandLine.Model.CommandSpec commandSpec;
@@ -59,7 +50,7 @@ final class FitCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         Instant started = Instant.now();
-        String folderName = OutputFolderOptions.stem(modelFile);
+        String folderName = ResultOptions.stem(modelFile);
         output.checkEarly(folderName);
         RunSpec spec = overrides.apply(ModelFile.read(modelFile));
         FittedRun run = FittedRun.of(spec);
@@ -77,8 +68,8 @@ final class FitCommand implements Callable<Integer> {
         if (sensitivity) {
             SensitivityReport.addTo(results, grid, prepared.moments().parameterNames());
         }
-        if (json != null) {
-            OutputFiles.writeAtomically(json, JsonResults.text(results));
+        if (output.json != null) {
+            OutputFiles.writeAtomically(output.json, JsonResults.text(results));
         }
         Path folder = null;
         if (output.requested()) {
@@ -86,7 +77,7 @@ final class FitCommand implements Callable<Integer> {
                     new Manifest.Run("fit", commandSpec.commandLine().getParseResult().originalArgs(),
                             Version.current(), started, Map.of()));
         }
-        if (!quiet) {
+        if (!output.quiet) {
             PrintWriter out = commandSpec.commandLine().getOut();
             out.print(ConsoleReport.render(spec, prepared.sample(), fit, prepared.notes(), restrictions));
             if (sensitivity) {

@@ -74,17 +74,8 @@ final class StabilityCommand implements Callable<Integer> {
             + SupWaldDistribution.DEFAULT_SEED + ")")
     Long seed;
 
-    @Option(names = "--json", paramLabel = "FILE", description = "also write the results as JSON to FILE")
-    Path json;
-
     @Mixin
-    OutputFolderOptions output;
-
-    @Option(names = "--quiet", description = "print nothing on success")
-    boolean quiet;
-
-    @Option(names = "--debug", description = "show a stack trace when Orthogon itself fails")
-    boolean debug;
+    ResultOptions output;
 
     @picocli.CommandLine.Spec
     picocli.CommandLine.Model.CommandSpec commandSpec;
@@ -92,7 +83,7 @@ final class StabilityCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         Instant started = Instant.now();
-        String folderName = OutputFolderOptions.stem(modelFile) + "-stability";
+        String folderName = ResultOptions.stem(modelFile) + "-stability";
         output.checkEarly(folderName);
         RunSpec spec = withCommandLine(overrides.apply(ModelFile.read(modelFile)));
         RunSpec.StabilitySpec choices = spec.stability();
@@ -133,8 +124,8 @@ final class StabilityCommand implements Callable<Integer> {
         }
         warnings.addAll(sizeWarnings(prepared, splitIndices, choices));
         ObjectNode json = StabilityReport.json(spec, prepared.sample(), results);
-        if (this.json != null) {
-            OutputFiles.writeAtomically(this.json, JsonResults.text(json));
+        if (output.json != null) {
+            OutputFiles.writeAtomically(output.json, JsonResults.text(json));
         }
         Path folder = null;
         if (output.requested()) {
@@ -145,7 +136,7 @@ final class StabilityCommand implements Callable<Integer> {
                             Version.current(), started, noSupWald ? Map.of() : Map.of("sup_wald", simulationSeed)),
                     List.of(spec), List.of(prepared.inputs()));
         }
-        if (!quiet) {
+        if (!output.quiet) {
             commandSpec.commandLine().getOut().print(StabilityReport.render(spec, prepared.sample(), results, warnings));
             if (folder != null) {
                 commandSpec.commandLine().getOut().println("\nReport folder: " + CheckReport.display(folder));

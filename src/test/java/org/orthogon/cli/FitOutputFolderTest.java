@@ -231,9 +231,9 @@ class FitOutputFolderTest {
 
     @Test
     void outWithoutAValueNamesTheFolderAfterTheModelFile() {
-        OutputFolderOptions options = new OutputFolderOptions();
+        ResultOptions options = new ResultOptions();
         options.out = Path.of("");
-        String stem = OutputFolderOptions.stem(Path.of("models/lumen-three-factor.toml"));
+        String stem = ResultOptions.stem(Path.of("models/lumen-three-factor.toml"));
         assertThat(options.target(stem)).isEqualTo(Path.of("out", "lumen-three-factor"));
         options.out = Path.of("x/y");
         assertThat(options.target(stem)).isEqualTo(Path.of("x/y"));

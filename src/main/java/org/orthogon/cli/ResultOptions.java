@@ -4,8 +4,17 @@ import java.nio.file.Path;
 import org.orthogon.report.OutputFolder;
 import picocli.CommandLine.Option;
 
-/** --out and --overwrite, shared by every command that writes an output folder. */
-final class OutputFolderOptions {
+/** Where a command's results go (--json, --out, --overwrite) and how loud it is (--quiet, --debug). */
+final class ResultOptions {
+    @Option(names = "--json", paramLabel = "FILE", description = "also write the results as JSON to FILE")
+    Path json;
+
+    @Option(names = "--quiet", description = "print nothing on success (errors still go to standard error)")
+    boolean quiet;
+
+    @Option(names = "--debug", description = "show a stack trace when Orthogon itself fails")
+    boolean debug;
+
     @Option(names = "--out", paramLabel = "DIR", arity = "0..1", fallbackValue = "",
             description = "also write the output folder (results.json, tables, charts, report.html, manifest.json) "
                     + "to DIR; --out alone writes out/<name>/ (put it after the model files)")
