@@ -41,7 +41,8 @@ public final class StabilityDocument {
                         "5% critical value of the supremum"));
             }
             if (!variant.rolling().isEmpty()) {
-                report.chart(rollingChart("rolling" + suffix, variant.rolling()));
+                // One chart per parameter: parameters on different scales would flatten each other.
+                rollingCharts("rolling", suffix, variant.rolling()).forEach(report::chart);
             }
         }
         return report.warnings(warnings).build();
@@ -81,24 +82,27 @@ public final class StabilityDocument {
                 .build();
     }
 
-    private static Chart rollingChart(String id, List<PeriodFit> windows) {
+    private static List<Chart> rollingCharts(String prefix, String suffix, List<PeriodFit> windows) {
         List<String> dates = windows.stream().map(PeriodFit::end).toList();
         PeriodFit sample = windows.stream().filter(w -> w.fit() != null).findFirst().orElse(null);
-        List<Chart.Path> paths = new ArrayList<>();
-        if (sample != null) {
-            for (int i = 0; i < sample.fit().parameters().size(); i++) {
-                List<Double> values = new ArrayList<>();
-                List<Double> errors = new ArrayList<>();
-                for (PeriodFit window : windows) {
-                    ParameterEstimate p = window.fit() == null ? null : window.fit().parameters().get(i);
-                    values.add(p == null ? Double.NaN : p.estimate());
-                    errors.add(p == null ? Double.NaN : p.stdError());
-                }
-                paths.add(new Chart.Path(sample.fit().parameters().get(i).name(), values, errors));
-            }
+        List<Chart> charts = new ArrayList<>();
+        if (sample == null) {
+            return charts;
         }
-        return new Chart.Bands(id, "Parameter paths over rolling windows (±1.96 standard errors)", "window end",
-                "estimate", dates, paths);
+        for (int i = 0; i < sample.fit().parameters().size(); i++) {
+            String name = sample.fit().parameters().get(i).name();
+            List<Double> values = new ArrayList<>();
+            List<Double> errors = new ArrayList<>();
+            for (PeriodFit window : windows) {
+                ParameterEstimate p = window.fit() == null ? null : window.fit().parameters().get(i);
+                values.add(p == null ? Double.NaN : p.estimate());
+                errors.add(p == null ? Double.NaN : p.stdError());
+            }
+            String id = prefix + "-" + name.toLowerCase(java.util.Locale.ROOT).replaceAll("[^a-z0-9]+", "-") + suffix;
+            charts.add(new Chart.Bands(id, name + " over rolling windows (±1.96 standard errors)", "window end",
+                    name, dates, List.of(new Chart.Path(name, values, errors))));
+        }
+        return charts;
     }
 
     private static String capitalise(String text) {

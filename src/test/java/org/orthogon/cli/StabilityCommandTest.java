@@ -70,7 +70,7 @@ class StabilityCommandTest {
                 "--split", "1990-01", "--window", "240", "--step", "120", "--out", out.toString(), "--quiet");
         assertThat(result.code()).as(result.err()).isZero();
         for (String file : new String[] {"tables/periods.tex", "tables/periods-fixed-weight.csv", "charts/sup-wald.svg",
-            "charts/rolling.png", "report.html"}) {
+            "charts/rolling-b-mkt.png", "report.html"}) {
             assertThat(out.resolve(file)).as(file).exists();
         }
         JsonNode manifest = JSON.readTree(out.resolve("manifest.json").toFile());
