@@ -7,6 +7,7 @@ import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.AccessDeniedException;
 import java.nio.file.Files;
+import java.nio.file.InvalidPathException;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -471,7 +472,13 @@ public final class ModelFile {
             throw error(section, key, key + " is empty", "write the path of a CSV file, relative to the model file");
         }
         Path folder = file.toAbsolutePath().getParent();
-        return folder.resolve(text).normalize();
+        try {
+            return folder.resolve(text).normalize();
+        } catch (InvalidPathException e) {
+            // A NUL (or, on some systems, another reserved character) makes the text no path at all.
+            throw error(section, key, key + " is not a usable path: " + e.getReason(),
+                    "write the path of a CSV file, relative to the model file, without control characters");
+        }
     }
 
     private Optional<Path> optionalPath(JsonNode node, String key) {

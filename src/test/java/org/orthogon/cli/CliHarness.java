@@ -32,6 +32,11 @@ final class CliHarness {
     }
 
     Result run(String... args) {
+        return runIn(args);
+    }
+
+    /** Runs the command line in-process with no project copy behind it. */
+    static Result runIn(String... args) {
         StringWriter out = new StringWriter();
         StringWriter err = new StringWriter();
         int code = Main.run(new PrintWriter(out), new PrintWriter(err), args);
