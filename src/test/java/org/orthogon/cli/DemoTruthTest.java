@@ -96,8 +96,8 @@ class DemoTruthTest {
         GmmFit builtIn = fit("lumen-power-utility.toml");
         for (int i = 0; i < 2; i++) {
             // Same SDF, same data. The moments agree to 1e-10 (ExpressionSdfErrorsTest). The estimates agree less
-            // closely: the formula family's Jacobian is numerical, the identity-weighted first step is badly
-            // conditioned (its Hessian eigenvalues differ by about 1e10), and its small difference moves W2.
+            // closely: the formula family's Jacobian is numerical, the identity-weighted first step on gross
+            // returns is badly conditioned, and its small difference moves W2 and so the second step.
             assertThat(expression.estimates()[i]).isCloseTo(builtIn.estimates()[i],
                     org.assertj.core.data.Offset.offset(1e-6 * Math.abs(builtIn.estimates()[i])));
         }
