@@ -68,7 +68,8 @@ public final class GmmEstimator {
                     "use a longer sample, fewer test assets or fewer instruments");
         }
         try {
-            return estimateChecked(model, start, options);
+            GmmFit fit = estimateChecked(model, start, options);
+            return options.smallSample() ? SmallSampleCorrection.apply(fit) : fit;
         } catch (Matrices.SingularMatrixException e) {
             throw refusal(e, model);
         }

@@ -15,10 +15,11 @@ import org.orthogon.longrun.LongRunOptions;
  * @param confidenceLevel    level of the reported confidence intervals, in (0, 1) (default 0.95)
  * @param hjSeed             seed of the simulated Hansen-Jagannathan p-value (default 20240101)
  * @param hjDraws            draws of that simulation (default 100 000)
+ * @param smallSample        multiply S by T/(T - P) for what is reported ({@link SmallSampleCorrection}; default off)
  */
 public record GmmOptions(EstimationMethod method, LongRunOptions longRun, InitialWeight initialWeight,
         ParameterBounds bounds, int maxIterations, double iterationTolerance, double confidenceLevel, long hjSeed,
-        int hjDraws) {
+        int hjDraws, boolean smallSample) {
 
     public static final int DEFAULT_MAX_ITERATIONS = 100;
     public static final double DEFAULT_ITERATION_TOLERANCE = 1e-8;
@@ -49,36 +50,41 @@ public record GmmOptions(EstimationMethod method, LongRunOptions longRun, Initia
     /** The method and S with every other choice at its default (identity first-step weight, no bounds). */
     public GmmOptions(EstimationMethod method, LongRunOptions longRun) {
         this(method, longRun, new InitialWeight.Identity(), ParameterBounds.none(), DEFAULT_MAX_ITERATIONS,
-                DEFAULT_ITERATION_TOLERANCE, DEFAULT_CONFIDENCE_LEVEL, DEFAULT_HJ_SEED, DEFAULT_HJ_DRAWS);
+                DEFAULT_ITERATION_TOLERANCE, DEFAULT_CONFIDENCE_LEVEL, DEFAULT_HJ_SEED, DEFAULT_HJ_DRAWS, false);
     }
 
     public GmmOptions withMethod(EstimationMethod m) {
         return new GmmOptions(m, longRun, initialWeight, bounds, maxIterations, iterationTolerance, confidenceLevel,
-                hjSeed, hjDraws);
+                hjSeed, hjDraws, smallSample);
     }
 
     public GmmOptions withInitialWeight(InitialWeight w) {
         return new GmmOptions(method, longRun, w, bounds, maxIterations, iterationTolerance, confidenceLevel, hjSeed,
-                hjDraws);
+                hjDraws, smallSample);
     }
 
     public GmmOptions withBounds(ParameterBounds b) {
         return new GmmOptions(method, longRun, initialWeight, b, maxIterations, iterationTolerance, confidenceLevel,
-                hjSeed, hjDraws);
+                hjSeed, hjDraws, smallSample);
     }
 
     public GmmOptions withMaxIterations(int cap) {
         return new GmmOptions(method, longRun, initialWeight, bounds, cap, iterationTolerance, confidenceLevel, hjSeed,
-                hjDraws);
+                hjDraws, smallSample);
     }
 
     public GmmOptions withConfidenceLevel(double level) {
         return new GmmOptions(method, longRun, initialWeight, bounds, maxIterations, iterationTolerance, level, hjSeed,
-                hjDraws);
+                hjDraws, smallSample);
     }
 
     public GmmOptions withHjSimulation(long seed, int draws) {
         return new GmmOptions(method, longRun, initialWeight, bounds, maxIterations, iterationTolerance,
-                confidenceLevel, seed, draws);
+                confidenceLevel, seed, draws, smallSample);
+    }
+
+    public GmmOptions withSmallSample(boolean on) {
+        return new GmmOptions(method, longRun, initialWeight, bounds, maxIterations, iterationTolerance, confidenceLevel,
+                hjSeed, hjDraws, on);
     }
 }

@@ -48,8 +48,8 @@ public final class JsonResults {
         number(longRun, "bandwidth", fit.longRun().bandwidth());
         longRun.put("prewhitened", fit.longRun().prewhitened());
         longRun.put("centered", fit.longRun().centered());
-        // T/(T-P) is reported but not applied: DESIGN.md keeps the small-sample factor off by default.
-        longRun.put("small_sample_adjusted", false);
+        // T/(T-P) is always reported, applied only when the model file asks (DESIGN.md: off by default).
+        longRun.put("small_sample_adjusted", spec.estimation().smallSample());
         number(longRun, "small_sample_factor", LongRunCovariance.smallSampleFactor(fit.observations(),
                 fit.parameters().size()));
         ArrayNode parameters = root.putArray("parameters");

@@ -86,6 +86,7 @@ public record FittedRun(RunSpec spec, PreparedRun prepared, GmmFit fit) {
                 .withBounds(ParameterBounds.byName(names, bounds))
                 .withMaxIterations(e.maxIterations())
                 .withConfidenceLevel(e.confidenceLevel())
-                .withHjSimulation(e.hjSeed(), e.hjDraws());
+                .withHjSimulation(e.hjSeed(), e.hjDraws())
+                .withSmallSample(e.smallSample());
     }
 }

@@ -691,14 +691,6 @@ public final class ModelAssembler {
         return start;
     }
 
-    private void rejectUnused(String key, List<String> values) {
-        if (!values.isEmpty()) {
-            throw InputException.in(spec.modelFile()).line(spec.lineOf("model", key))
-                    .problem(key + " is not used by the " + spec.model().family().id() + " family",
-                            "remove it, or choose the family that uses it");
-        }
-    }
-
     private InputException missingKey(String section, String key, String problem, String fix) {
         int line = spec.lineOf(section, key);
         return InputException.in(spec.modelFile()).line(line).problem(problem, fix);

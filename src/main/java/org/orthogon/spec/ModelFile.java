@@ -48,7 +48,8 @@ public final class ModelFile {
     private static final List<String> FORMS = List.of("excess", "demeaned", "gross");
     private static final List<String> PAYOFFS = List.of("gross", "excess");
     private static final List<String> ESTIMATION_KEYS = List.of("method", "initial_weight", "kernel", "bandwidth",
-            "lags", "prewhiten", "centered", "restrictions", "confidence_level", "max_iterations", "hj_seed", "hj_draws");
+            "lags", "prewhiten", "centered", "restrictions", "confidence_level", "max_iterations", "hj_seed", "hj_draws",
+            "small_sample_correction");
     private static final List<String> STABILITY_KEYS = List.of("splits", "trimming", "window", "step", "expanding");
     private static final List<String> RETURN_KINDS = List.of("gross", "net", "excess");
     private static final List<String> UNITS = List.of("decimal", "percent");
@@ -270,7 +271,8 @@ public final class ModelFile {
                 stringList("estimation", node, "restrictions"), level,
                 wholeNumber(node, "max_iterations", 1, 100, "max_iterations = 100"),
                 wholeNumber(node, "hj_seed", 0, 20240101, "hj_seed = 20240101"),
-                wholeNumber(node, "hj_draws", 1000, 100_000, "hj_draws = 100000"));
+                wholeNumber(node, "hj_draws", 1000, 100_000, "hj_draws = 100000"),
+                bool("estimation", node, "small_sample_correction", false));
     }
 
     private int wholeNumber(JsonNode node, String key, int minimum, int fallback, String example) {

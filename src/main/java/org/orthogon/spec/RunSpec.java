@@ -99,10 +99,11 @@ public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec mod
      * @param maxIterations    cap on the weight updates of iterated GMM
      * @param hjSeed           seed of the simulated p-value of the Hansen-Jagannathan distance
      * @param hjDraws          draws of that simulation
+     * @param smallSample      multiply S by T/(T - P) for the reported inference (off by default)
      */
     public record EstimationSpec(EstimationMethod method, String initialWeight, Kernel kernel, BandwidthRule bandwidth,
             boolean prewhiten, boolean centered, List<String> restrictions, double confidenceLevel, int maxIterations,
-            long hjSeed, int hjDraws) {
+            long hjSeed, int hjDraws, boolean smallSample) {
 
         public EstimationSpec {
             restrictions = List.copyOf(restrictions);
@@ -113,14 +114,14 @@ public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec mod
             List<String> all = new java.util.ArrayList<>(restrictions);
             all.addAll(more);
             return new EstimationSpec(method, initialWeight, kernel, bandwidth, prewhiten, centered, all, confidenceLevel,
-                    maxIterations, hjSeed, hjDraws);
+                    maxIterations, hjSeed, hjDraws, smallSample);
         }
 
         /** The same choices with another method, kernel, bandwidth rule, prewhitening and centering. */
         public EstimationSpec with(EstimationMethod newMethod, Kernel newKernel, BandwidthRule newBandwidth,
                 boolean newPrewhiten, boolean newCentered) {
             return new EstimationSpec(newMethod, initialWeight, newKernel, newBandwidth, newPrewhiten, newCentered,
-                    restrictions, confidenceLevel, maxIterations, hjSeed, hjDraws);
+                    restrictions, confidenceLevel, maxIterations, hjSeed, hjDraws, smallSample);
         }
 
         /** The long-run covariance options these choices imply. */
