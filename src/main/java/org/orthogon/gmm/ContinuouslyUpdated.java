@@ -2,6 +2,7 @@ package org.orthogon.gmm;
 
 import java.util.ArrayList;
 import java.util.List;
+import org.apache.commons.math3.exception.MathIllegalStateException;
 import org.apache.commons.math3.exception.TooManyEvaluationsException;
 import org.apache.commons.math3.optim.InitialGuess;
 import org.apache.commons.math3.optim.MaxEval;
@@ -126,6 +127,12 @@ final class ContinuouslyUpdated {
             return new Result(start.clone(), Double.NaN, false, evaluations[0],
                     List.of("the continuously-updated search from the two-step estimate used up its "
                             + MAX_EVALUATIONS + " evaluations"), List.of());
+        } catch (MathIllegalStateException | ArithmeticException | IllegalArgumentException
+                | Matrices.SingularMatrixException e) {
+            // The objective can leave the region where S is invertible or the SDF is defined.
+            return new Result(start.clone(), Double.NaN, false, evaluations[0],
+                    List.of("the continuously-updated search from the two-step estimate failed: " + e.getMessage()),
+                    List.of());
         }
         double bestValue = q.applyAsDouble(best);
         int higher = 0;
@@ -161,13 +168,16 @@ final class ContinuouslyUpdated {
                             flat++;
                         }
                     }
-                } catch (TooManyEvaluationsException e) {
+                } catch (MathIllegalStateException | ArithmeticException | IllegalArgumentException
+                        | Matrices.SingularMatrixException e) {
+                    // Used up its evaluations, or left the region where S is invertible or the SDF defined.
                     failed++;
                 }
             }
         }
         if (failed > 0) {
-            notes.add("continuously-updated GMM: " + failed + " of " + checks + " check starts used up their evaluations");
+            notes.add("continuously-updated GMM: " + failed + " of " + checks + " check starts used up their evaluations "
+                    + "or left the region where the objective is defined");
         }
         if (higher > 0) {
             notes.add("continuously-updated GMM: the starts disagree: " + higher + " of " + (checks + 1)

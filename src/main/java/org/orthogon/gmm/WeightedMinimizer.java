@@ -3,6 +3,7 @@ package org.orthogon.gmm;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import org.apache.commons.math3.exception.ConvergenceException;
 import org.apache.commons.math3.exception.TooManyEvaluationsException;
 import org.apache.commons.math3.exception.TooManyIterationsException;
 import org.apache.commons.math3.fitting.leastsquares.LeastSquaresBuilder;
@@ -323,8 +324,9 @@ public final class WeightedMinimizer {
                             atBounds);
                 }
             } catch (TooManyEvaluationsException | TooManyIterationsException | ArithmeticException
-                    | ParameterOutOfRangeException e) {
-                // A start that wanders where the SDF is undefined (beta <= 0 in recursive utility) counts as failed.
+                    | ConvergenceException | ParameterOutOfRangeException e) {
+                // A start that wanders where the SDF is undefined (beta <= 0 in recursive utility), or where the
+                // Jacobian loses rank so the solver's QR step fails, counts as a failed start.
                 failed++;
             }
         }

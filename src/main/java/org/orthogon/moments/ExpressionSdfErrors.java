@@ -134,9 +134,10 @@ public final class ExpressionSdfErrors implements ObservationErrors {
             throw new ExpressionException("unknown " + (called ? "function" : "name") + " \"" + token
                     + "\" at character " + position + " of the SDF expression \"" + formula + "\": " + what,
                     token, position);
-        } catch (IllegalArgumentException e) {
-            throw new ExpressionException("the SDF expression \"" + formula + "\" cannot be read: " + e.getMessage(),
-                    null, 0);
+        } catch (IllegalArgumentException | java.util.EmptyStackException e) {
+            // The formula library reports some malformed input (an operator with no operand) as an empty stack.
+            throw new ExpressionException("the SDF expression \"" + formula + "\" cannot be read: "
+                    + (e.getMessage() == null ? "an operator lacks an operand" : e.getMessage()), null, 0);
         }
         ValidationResult validation = parsed.validate(false);
         if (!validation.isValid()) {

@@ -91,11 +91,24 @@ class FuzzTest {
         Path runs = Files.createDirectories(root.resolve("runs"));
         IntStream numbers = ONLY != null ? IntStream.of(ONLY) : IntStream.range(0, CASES);
         return numbers.mapToObj(n -> DynamicTest.dynamicTest("case " + n + " of seed " + SEED,
-                () -> runCase(n, originals, runs)));
+                () -> runCase(SEED, n, originals, runs)));
     }
 
-    private void runCase(int n, Map<String, String> originals, Path runs) throws IOException {
-        Random random = new Random(SEED * 1_000_003L + n);
+    /**
+     * Cases of seed 7 that the 10^5 run found exiting with 1, kept as regressions: a formula the formula
+     * library rejects with an empty-stack error (63895) and consumption data that make the solver's
+     * Jacobian lose rank in its QR step (61613, 67771, 99272). Both now give exit 2 or 3.
+     */
+    @TestFactory
+    Stream<DynamicTest> casesTheHundredThousandRunFound() throws IOException {
+        Map<String, String> originals = LumenFixture.writeTo(root);
+        Path runs = Files.createDirectories(root.resolve("regression-runs"));
+        return IntStream.of(61613, 63895, 67771, 99272).mapToObj(n -> DynamicTest.dynamicTest("case " + n + " of seed 7",
+                () -> runCase(7L, n, originals, runs)));
+    }
+
+    private void runCase(long seed, int n, Map<String, String> originals, Path runs) throws IOException {
+        Random random = new Random(seed * 1_000_003L + n);
         Model model = MODELS.get(random.nextInt(MODELS.size()));
         List<String> files = new ArrayList<>(model.data());
         files.add(model.file());
@@ -119,8 +132,8 @@ class FuzzTest {
                     ? run("fit", root.resolve(model.file()).toString(), "--out", out.toString(), "--quiet")
                     : run("check", root.resolve(model.file()).toString());
             String replay = String.format("seed %d case %d (%s, %s %s on %s); replay with mvn -q test -Dtest=FuzzTest "
-                    + "-Dorthogon.fuzz.seed=%d -Dorthogon.fuzz.case=%d%nexit %d, stderr:%n%s", SEED, n,
-                    model.file(), fit ? "fit --out" : "check", applied, target, SEED, n, result.code(), result.err());
+                    + "-Dorthogon.fuzz.seed=%d -Dorthogon.fuzz.case=%d%nexit %d, stderr:%n%s", seed, n,
+                    model.file(), fit ? "fit --out" : "check", applied, target, seed, n, result.code(), result.err());
             assertClean(result, replay);
             List<String> left = list(runs);
             if (result.code() == Main.EXIT_OK && fit) {
