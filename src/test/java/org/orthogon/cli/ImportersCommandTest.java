@@ -6,6 +6,7 @@ import static org.assertj.core.api.Assertions.within;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.List;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
@@ -153,5 +154,47 @@ class ImportersCommandTest {
         CliHarness.Result ragged = cli.run("check", model.toString());
         assertThat(ragged.code()).isEqualTo(Main.EXIT_INPUT);
         assertThat(ragged.err()).contains("lumen-portfolios-sections.txt").contains("line 9, column 13").contains("fix:");
+    }
+
+    /** The issue's malformed variants of the sectioned layout, each through `check`: exit 2 with file, line, column. */
+    @org.junit.jupiter.params.ParameterizedTest(name = "{0}")
+    @org.junit.jupiter.params.provider.CsvSource(delimiter = '|', value = {
+        "truncated table | 102 | 196912      7.2381      5.9744       4.391      6.5577 | 196912      7.2381",
+        "bad date        | 10  | 196204      6.0625 | 1962-4      6.0625",
+        "missing code in the middle | 101 | 196911     -8.0503 | 196911     -99.99",
+    })
+    void malformedSectionedVariantsAreRefused(String variant, int line, String from, String to) throws IOException {
+        Path sections = cli.data.resolve("lumen-portfolios-sections.txt");
+        List<String> lines = new java.util.ArrayList<>(Files.readAllLines(sections));
+        int index = line - 1;
+        assertThat(lines.get(index)).as(variant).startsWith(from.strip());
+        lines.set(index, to.strip() + lines.get(index).substring(from.strip().length()));
+        if (variant.startsWith("truncated")) {
+            lines.set(index, to.strip());
+            lines = lines.subList(0, line);
+        }
+        Files.write(sections, lines);
+        CliHarness.Result result = cli.run("check", sectionedModel().toString());
+        assertThat(result.code()).as(result.err()).isEqualTo(Main.EXIT_INPUT);
+        assertThat(result.err()).contains("lumen-portfolios-sections.txt").contains("line " + line).contains("column")
+                .contains("fix:");
+    }
+
+    @Test
+    void aDuplicateTableTitleIsRefused() throws IOException {
+        Path sections = cli.data.resolve("lumen-portfolios-sections.txt");
+        Files.writeString(sections, Files.readString(sections).replace("value-weighted annual returns",
+                "value-weighted monthly returns"));
+        CliHarness.Result result = cli.run("check", sectionedModel().toString());
+        assertThat(result.code()).as(result.err()).isEqualTo(Main.EXIT_INPUT);
+        assertThat(result.err()).contains("lumen-portfolios-sections.txt").contains("line 764").contains("fix:");
+    }
+
+    private Path sectionedModel() throws IOException {
+        return model("sectioned-check.toml", Files.readString(cli.models.resolve("lumen-three-factor.toml"))
+                .replace("returns = \"../demo-data/lumen-portfolios-monthly.csv\"",
+                        "returns = \"../demo-data/lumen-portfolios-sections.txt\"\nreturns_table = \"Lumen size/tide "
+                                + "portfolios, value-weighted monthly returns\"")
+                .replace("units = \"decimal\"", "units = \"percent\""));
     }
 }
