@@ -1,6 +1,5 @@
 package org.orthogon.moments;
 
-import java.util.ArrayList;
 import java.util.List;
 
 /**
@@ -24,11 +23,9 @@ import java.util.List;
  * reports F_k for them (e = 1·F_k - μ_k), so a Hansen-Jagannathan distance should be taken over the
  * first {@link #pricingMoments()} moments only.
  */
-public final class DemeanedFactorErrors implements ObservationErrors {
+public final class DemeanedFactorErrors extends NamedErrors {
     private final double[][] excessReturns; // [t][i]
     private final double[][] factors; // [t][k]
-    private final List<String> assetNames;
-    private final List<String> parameterNames;
     private final int assets;
     private final int factorCount;
 
@@ -40,17 +37,13 @@ public final class DemeanedFactorErrors implements ObservationErrors {
      */
     public DemeanedFactorErrors(double[][] excessReturns, double[][] factors, List<String> assetNames,
             List<String> factorNames) {
+        super(MomentAlgebra.concat(MomentAlgebra.prefixed("b_", factorNames), MomentAlgebra.prefixed("mu_", factorNames)),
+                MomentAlgebra.concat(assetNames, MomentAlgebra.prefixed("mean_", factorNames)));
         MomentAlgebra.requireRows(excessReturns.length, factors.length, "returns", "factors");
         this.assets = assetNames.size();
         this.factorCount = factorNames.size();
         this.excessReturns = MomentAlgebra.copyRows(excessReturns, assets, "return");
         this.factors = MomentAlgebra.copyRows(factors, factorCount, "factor");
-        List<String> moments = new ArrayList<>(assetNames);
-        moments.addAll(MomentAlgebra.prefixed("mean_", factorNames));
-        this.assetNames = List.copyOf(moments);
-        List<String> parameters = new ArrayList<>(MomentAlgebra.prefixed("b_", factorNames));
-        parameters.addAll(MomentAlgebra.prefixed("mu_", factorNames));
-        this.parameterNames = List.copyOf(parameters);
     }
 
     /** The number N of moments that price assets; the K factor-mean moments follow them. */
@@ -69,15 +62,7 @@ public final class DemeanedFactorErrors implements ObservationErrors {
         return mean;
     }
 
-    @Override
-    public List<String> parameterNames() {
-        return parameterNames;
-    }
 
-    @Override
-    public List<String> assetNames() {
-        return assetNames;
-    }
 
     @Override
     public int observations() {

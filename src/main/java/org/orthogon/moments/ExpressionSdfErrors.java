@@ -24,7 +24,7 @@ import net.objecthunter.exp4j.tokenizer.UnknownFunctionOrVariableException;
  *
  * <p>Derivatives are numerical: {@link CentralDifferences} with steps ε^{1/3} max(|θ_p|, 1).
  */
-public final class ExpressionSdfErrors implements ObservationErrors {
+public final class ExpressionSdfErrors extends NamedErrors {
 
     /** What the priced payoffs are, which fixes their price p in e = m x - p. */
     public enum PayoffKind {
@@ -73,11 +73,9 @@ public final class ExpressionSdfErrors implements ObservationErrors {
 
     private final String formula;
     private final Expression template;
-    private final List<String> parameterNames;
     private final List<String> dataNames;
     private final double[][] data; // [column][t], only the columns the formula uses
     private final double[][] payoffs; // [t][i]
-    private final List<String> assetNames;
     private final double price;
 
     /**
@@ -94,9 +92,8 @@ public final class ExpressionSdfErrors implements ObservationErrors {
      */
     public ExpressionSdfErrors(String formula, List<String> parameterNames, Map<String, double[]> dataColumns,
             double[][] payoffs, List<String> assetNames, PayoffKind kind) {
+        super(parameterNames, assetNames);
         this.formula = formula;
-        this.parameterNames = List.copyOf(parameterNames);
-        this.assetNames = List.copyOf(assetNames);
         this.payoffs = MomentAlgebra.copyRows(payoffs, assetNames.size(), "payoff");
         this.price = kind.price();
         if (formula == null || formula.isBlank()) {
@@ -104,7 +101,7 @@ public final class ExpressionSdfErrors implements ObservationErrors {
                     + " e.g. \"beta * cons_growth^(-gamma)\"", null, 0);
         }
         Set<String> names = new LinkedHashSet<>();
-        for (String p : this.parameterNames) {
+        for (String p : parameterNames()) {
             if (dataColumns.containsKey(p)) {
                 throw new ExpressionException("\"" + p + "\" is both a parameter and a data column; rename the"
                         + " parameter so the SDF expression \"" + formula + "\" is unambiguous", p, 0);
@@ -129,7 +126,7 @@ public final class ExpressionSdfErrors implements ObservationErrors {
             String what = called
                     ? "it is not one of the functions (exp, log, log10, sqrt, abs, sin, cos and others); the"
                     + " natural logarithm is log"
-                    : "it is neither a parameter (" + String.join(", ", this.parameterNames) + ") nor a data column ("
+                    : "it is neither a parameter (" + String.join(", ", parameterNames()) + ") nor a data column ("
                     + String.join(", ", dataColumns.keySet()) + ")";
             throw new ExpressionException("unknown " + (called ? "function" : "name") + " \"" + token
                     + "\" at character " + position + " of the SDF expression \"" + formula + "\": " + what,
@@ -145,7 +142,7 @@ public final class ExpressionSdfErrors implements ObservationErrors {
                     + String.join("; ", validation.getErrors()), null, 0);
         }
         Set<String> used = parsed.getVariableNames();
-        for (String p : this.parameterNames) {
+        for (String p : parameterNames()) {
             if (!used.contains(p)) {
                 throw new ExpressionException("the parameter \"" + p + "\" does not occur in the SDF expression \""
                         + formula + "\", so the data cannot identify it; remove it or use it in the expression", p, 0);
@@ -180,9 +177,9 @@ public final class ExpressionSdfErrors implements ObservationErrors {
      * @throws IllegalArgumentException if θ has the wrong length
      */
     public double[] sdf(double[] theta) {
-        if (theta.length != parameterNames.size()) {
+        if (theta.length != parameterNames().size()) {
             throw new IllegalArgumentException("θ has " + theta.length + " values, the expression has parameters "
-                    + parameterNames);
+                    + parameterNames());
         }
         // A private copy per call: exp4j expressions hold their variable values.
         Expression expression = new Expression(template);
@@ -199,15 +196,7 @@ public final class ExpressionSdfErrors implements ObservationErrors {
         return m;
     }
 
-    @Override
-    public List<String> parameterNames() {
-        return parameterNames;
-    }
 
-    @Override
-    public List<String> assetNames() {
-        return assetNames;
-    }
 
     @Override
     public int observations() {

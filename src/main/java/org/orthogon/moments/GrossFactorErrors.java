@@ -1,6 +1,5 @@
 package org.orthogon.moments;
 
-import java.util.ArrayList;
 import java.util.List;
 
 /**
@@ -13,11 +12,9 @@ import java.util.List;
  * <p>Affine in θ = (a, b): ∂e_i/∂a = R_i and ∂e_i/∂b_k = -F_k R_i, so {@link #isLinear()} is true and
  * the closed form of DESIGN.md section 3 applies.
  */
-public final class GrossFactorErrors implements ObservationErrors {
+public final class GrossFactorErrors extends NamedErrors {
     private final double[][] grossReturns; // [t][i], risk-free appended last
     private final double[][] factors;
-    private final List<String> assetNames;
-    private final List<String> parameterNames;
 
     /**
      * @param grossReturns   T x N gross returns of the test assets
@@ -29,6 +26,8 @@ public final class GrossFactorErrors implements ObservationErrors {
      */
     public GrossFactorErrors(double[][] grossReturns, double[] riskfreeGross, double[][] factors,
             List<String> assetNames, String riskfreeName, List<String> factorNames) {
+        super(MomentAlgebra.concat(List.of("a"), MomentAlgebra.prefixed("b_", factorNames)),
+                MomentAlgebra.concat(assetNames, List.of(riskfreeName)));
         MomentAlgebra.requireRows(grossReturns.length, riskfreeGross.length, "returns", "risk-free rates");
         MomentAlgebra.requireRows(grossReturns.length, factors.length, "returns", "factors");
         if (assetNames.contains(riskfreeName)) {
@@ -43,24 +42,9 @@ public final class GrossFactorErrors implements ObservationErrors {
             this.grossReturns[t][n] = riskfreeGross[t];
         }
         this.factors = MomentAlgebra.copyRows(factors, factorNames.size(), "factor");
-        List<String> names = new ArrayList<>(assetNames);
-        names.add(riskfreeName);
-        this.assetNames = List.copyOf(names);
-        List<String> parameters = new ArrayList<>();
-        parameters.add("a");
-        parameters.addAll(MomentAlgebra.prefixed("b_", factorNames));
-        this.parameterNames = List.copyOf(parameters);
     }
 
-    @Override
-    public List<String> parameterNames() {
-        return parameterNames;
-    }
 
-    @Override
-    public List<String> assetNames() {
-        return assetNames;
-    }
 
     @Override
     public int observations() {

@@ -9,11 +9,9 @@ import java.util.List;
  * ∂e_{t,i}/∂b_k = -R^e_{t,i} F_{t,k}, so the mean is g_T(b) = d - C b with d = mean R^e and
  * C = mean R^e F', and GMM with weight W has the closed form b = (C'WC)^{-1} C'W d.
  */
-public final class LinearFactorErrors implements ObservationErrors {
+public final class LinearFactorErrors extends NamedErrors {
     private final double[][] excessReturns; // [t][i]
     private final double[][] factors; // [t][k]
-    private final List<String> assetNames;
-    private final List<String> parameterNames;
 
     /**
      * @param excessReturns T x N excess returns
@@ -23,25 +21,16 @@ public final class LinearFactorErrors implements ObservationErrors {
      */
     public LinearFactorErrors(double[][] excessReturns, double[][] factors, List<String> assetNames,
             List<String> factorNames) {
+        super(MomentAlgebra.prefixed("b_", factorNames), assetNames);
         if (excessReturns.length != factors.length) {
             throw new IllegalArgumentException("returns have " + excessReturns.length + " rows but factors have "
                     + factors.length);
         }
-        this.assetNames = List.copyOf(assetNames);
-        this.parameterNames = MomentAlgebra.prefixed("b_", factorNames);
-        this.excessReturns = MomentAlgebra.copyRows(excessReturns, assetNames.size(), "return");
+        this.excessReturns = MomentAlgebra.copyRows(excessReturns, assetNames().size(), "return");
         this.factors = MomentAlgebra.copyRows(factors, factorNames.size(), "factor");
     }
 
-    @Override
-    public List<String> parameterNames() {
-        return parameterNames;
-    }
 
-    @Override
-    public List<String> assetNames() {
-        return assetNames;
-    }
 
     @Override
     public int observations() {
@@ -71,7 +60,7 @@ public final class LinearFactorErrors implements ObservationErrors {
 
     @Override
     public void errors(double[] b, double[] out) {
-        int n = assetNames.size();
+        int n = assetNames().size();
         double[] sdf = new double[excessReturns.length];
         discountFactor(b, sdf);
         for (int t = 0; t < excessReturns.length; t++) {
@@ -84,7 +73,7 @@ public final class LinearFactorErrors implements ObservationErrors {
 
     @Override
     public void errorDerivatives(double[] b, double[][] out) {
-        int n = assetNames.size();
+        int n = assetNames().size();
         for (int t = 0; t < excessReturns.length; t++) {
             double[] f = factors[t];
             double[] r = excessReturns[t];

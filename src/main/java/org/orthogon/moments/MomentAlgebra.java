@@ -48,6 +48,13 @@ public final class MomentAlgebra {
         }
     }
 
+    /** The two lists one after the other. */
+    static java.util.List<String> concat(java.util.List<String> first, java.util.List<String> second) {
+        java.util.List<String> all = new java.util.ArrayList<>(first);
+        all.addAll(second);
+        return java.util.List.copyOf(all);
+    }
+
     /** The names prefixed, e.g. "b_" + factor. */
     static java.util.List<String> prefixed(String prefix, java.util.List<String> names) {
         java.util.List<String> out = new java.util.ArrayList<>(names.size());

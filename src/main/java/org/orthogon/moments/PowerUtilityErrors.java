@@ -10,13 +10,12 @@ import java.util.List;
  *
  * <p>Derivatives: ∂e/∂β = g^{-γ} R and ∂e/∂γ = -β ln(g) g^{-γ} R, with g = C_t/C_{t-1}.
  */
-public final class PowerUtilityErrors implements ObservationErrors {
+public final class PowerUtilityErrors extends NamedErrors {
     public static final List<String> PARAMETERS = List.of("beta", "gamma");
 
     private final double[][] grossReturns; // [t][i]
     private final double[] consumptionGrowth;
     private final double[] logGrowth;
-    private final List<String> assetNames;
 
     /**
      * @param grossReturns      T x N gross returns R_{t,i}, row t the period ending at t
@@ -24,18 +23,18 @@ public final class PowerUtilityErrors implements ObservationErrors {
      * @param assetNames        N asset names
      */
     public PowerUtilityErrors(double[][] grossReturns, double[] consumptionGrowth, List<String> assetNames) {
+        super(PARAMETERS, assetNames);
         if (grossReturns.length != consumptionGrowth.length) {
             throw new IllegalArgumentException("returns have " + grossReturns.length
                     + " rows but consumption growth has " + consumptionGrowth.length);
         }
-        this.assetNames = List.copyOf(assetNames);
         this.grossReturns = new double[grossReturns.length][];
         this.consumptionGrowth = consumptionGrowth.clone();
         this.logGrowth = new double[consumptionGrowth.length];
         for (int t = 0; t < grossReturns.length; t++) {
-            if (grossReturns[t].length != assetNames.size()) {
+            if (grossReturns[t].length != assetNames().size()) {
                 throw new IllegalArgumentException("return row " + t + " has " + grossReturns[t].length
-                        + " values, expected " + assetNames.size());
+                        + " values, expected " + assetNames().size());
             }
             if (!(consumptionGrowth[t] > 0)) {
                 throw new IllegalArgumentException("consumption growth must be a positive gross rate, found "
@@ -46,15 +45,7 @@ public final class PowerUtilityErrors implements ObservationErrors {
         }
     }
 
-    @Override
-    public List<String> parameterNames() {
-        return PARAMETERS;
-    }
 
-    @Override
-    public List<String> assetNames() {
-        return assetNames;
-    }
 
     @Override
     public int observations() {
@@ -82,7 +73,7 @@ public final class PowerUtilityErrors implements ObservationErrors {
     public void errors(double[] theta, double[] out) {
         double beta = theta[0];
         double gamma = theta[1];
-        int n = assetNames.size();
+        int n = assetNames().size();
         for (int t = 0; t < grossReturns.length; t++) {
             double discount = beta * Math.exp(-gamma * logGrowth[t]);
             double[] r = grossReturns[t];
@@ -96,7 +87,7 @@ public final class PowerUtilityErrors implements ObservationErrors {
     public void errorDerivatives(double[] theta, double[][] out) {
         double beta = theta[0];
         double gamma = theta[1];
-        int n = assetNames.size();
+        int n = assetNames().size();
         for (int t = 0; t < grossReturns.length; t++) {
             double marginalUtilityRatio = Math.exp(-gamma * logGrowth[t]);
             double[] r = grossReturns[t];

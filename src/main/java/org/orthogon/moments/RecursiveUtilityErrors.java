@@ -1,6 +1,5 @@
 package org.orthogon.moments;
 
-import java.util.ArrayList;
 import java.util.List;
 
 /**
@@ -30,7 +29,7 @@ import java.util.List;
  * ∂ln m/∂β = θ/β; ∂θ/∂γ = -ψ/(ψ - 1), ∂κ/∂γ = -1/(ψ - 1); ∂θ/∂ψ = ∂κ/∂ψ = -(1 - γ)/(ψ - 1)²; so
  * ∂ln m/∂γ = ∂θ/∂γ (ln β + ln R_w) - ∂κ/∂γ ln g and ∂ln m/∂ψ = ∂θ/∂ψ (ln β + ln R_w - ln g).
  */
-public final class RecursiveUtilityErrors implements ObservationErrors {
+public final class RecursiveUtilityErrors extends NamedErrors {
     public static final List<String> PARAMETERS = List.of("beta", "gamma", "psi");
 
     /** ψ closer to 1 than this (with γ ≠ 1) is refused: θ would exceed 1e8 and m overflow. */
@@ -39,7 +38,6 @@ public final class RecursiveUtilityErrors implements ObservationErrors {
     private final double[][] grossReturns; // [t][i], wealth proxy appended as the last column
     private final double[] logGrowth;
     private final double[] logWealthReturn;
-    private final List<String> assetNames;
 
     /**
      * @param grossReturns      T x N gross returns of the test assets (without the wealth proxy)
@@ -50,6 +48,7 @@ public final class RecursiveUtilityErrors implements ObservationErrors {
      */
     public RecursiveUtilityErrors(double[][] grossReturns, double[] consumptionGrowth, double[] wealthReturn,
             List<String> assetNames, String wealthName) {
+        super(PARAMETERS, MomentAlgebra.concat(assetNames, List.of(wealthName)));
         MomentAlgebra.requireRows(grossReturns.length, consumptionGrowth.length, "returns", "consumption growth");
         MomentAlgebra.requireRows(grossReturns.length, wealthReturn.length, "returns", "wealth returns");
         if (assetNames.contains(wealthName)) {
@@ -77,9 +76,6 @@ public final class RecursiveUtilityErrors implements ObservationErrors {
             this.logGrowth[t] = Math.log(consumptionGrowth[t]);
             this.logWealthReturn[t] = Math.log(wealthReturn[t]);
         }
-        List<String> names = new ArrayList<>(assetNames);
-        names.add(wealthName);
-        this.assetNames = List.copyOf(names);
     }
 
     /**
@@ -108,15 +104,7 @@ public final class RecursiveUtilityErrors implements ObservationErrors {
         return psi - 1.0;
     }
 
-    @Override
-    public List<String> parameterNames() {
-        return PARAMETERS;
-    }
 
-    @Override
-    public List<String> assetNames() {
-        return assetNames;
-    }
 
     @Override
     public int observations() {
