@@ -106,6 +106,12 @@ public final class ScaledMoments implements MomentModel {
         int rows = observations();
         double[] raw = new double[rows * assets];
         errors.errors(theta, raw);
+        return scaledRows(raw);
+    }
+
+    /** The T x N values as the T x K moment matrix: themselves, or times the lagged instruments. */
+    private DMatrixRMaj scaledRows(double[] raw) {
+        int rows = observations();
         if (instruments == null) {
             return DMatrixRMaj.wrap(rows, assets, raw);
         }
@@ -131,22 +137,12 @@ public final class ScaledMoments implements MomentModel {
         return errors.pricedAssets() * instrumentCount;
     }
 
-    /** True when the moments are the family's errors themselves, not scaled by instruments. */
-    public boolean isUnscaled() {
-        return instruments == null;
-    }
-
     @Override
     public DMatrixRMaj payoffs() {
         int rows = observations();
         double[] raw = new double[rows * assets];
         errors.payoffs(raw);
-        if (instruments == null) {
-            return DMatrixRMaj.wrap(rows, assets, raw);
-        }
-        DMatrixRMaj scaled = new DMatrixRMaj(rows, assets * instrumentCount);
-        kronecker(raw, scaled.data);
-        return scaled;
+        return scaledRows(raw);
     }
 
     @Override

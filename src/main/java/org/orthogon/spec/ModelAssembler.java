@@ -651,10 +651,15 @@ public final class ModelAssembler {
      * accepts at the edges of the sample; any other file is read strictly by {@link CsvSeries}.
      */
     private static boolean isTwoColumnWithMissing(Path file) {
-        try (var lines = java.nio.file.Files.lines(file, java.nio.charset.StandardCharsets.UTF_8)) {
-            List<String> rows = lines.map(String::strip).filter(line -> !line.isEmpty()).toList();
-            return !rows.isEmpty() && rows.stream().allMatch(line -> line.split(",", -1).length == 2)
-                    && rows.stream().skip(1).anyMatch(line -> line.endsWith(",.") || line.endsWith(","));
+        try (var reader = java.nio.file.Files.newBufferedReader(file, java.nio.charset.StandardCharsets.UTF_8)) {
+            // Only the header is read for a wide file; a date,value file is scanned for its missing marks.
+            String header = reader.readLine();
+            if (header == null || header.split(",", -1).length != 2) {
+                return false;
+            }
+            List<String> rows = reader.lines().map(String::strip).filter(line -> !line.isEmpty()).toList();
+            return rows.stream().allMatch(line -> line.split(",", -1).length == 2)
+                    && rows.stream().anyMatch(line -> line.endsWith(",.") || line.endsWith(","));
         } catch (java.io.IOException | java.io.UncheckedIOException e) {
             return false; // the strict reader then reports why the file cannot be read
         }
