@@ -11,6 +11,7 @@ import org.ejml.dense.row.CommonOps_DDRM;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
+import org.orthogon.TestLog;
 import org.orthogon.gmm.ChiSquareTest;
 import org.orthogon.gmm.EstimationMethod;
 import org.orthogon.gmm.GmmEstimator;
@@ -31,7 +32,8 @@ class StabilityTest {
         // remembered as 8.85 and the corrected one as 8.68, so both are checked; p = 2: 11.79.
         SupWaldDistribution distribution = SupWaldDistribution.simulate(parameters, 0.15, 11L, 20_000);
         double simulated = distribution.criticalValue(0.05);
-        System.out.printf("sup-Wald 5%% critical value, p = %d: simulated %.3f, published %.2f%n", parameters, simulated,
+        TestLog.printf(StabilityTest.class,
+                "sup-Wald 5%% critical value, p = %d: simulated %.3f, published %.2f%n", parameters, simulated,
                 published);
         assertThat(simulated).isCloseTo(published, within(0.03 * published));
         assertThat(distribution.pValue(simulated)).isCloseTo(0.05, within(0.001));
