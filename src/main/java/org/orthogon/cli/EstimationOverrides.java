@@ -12,7 +12,7 @@ import org.orthogon.spec.RunSpec;
 import org.orthogon.spec.RunSpec.EstimationSpec;
 import picocli.CommandLine.Option;
 
-/** Command-line options that replace the model file's [estimation] choices (DESIGN.md section 4). */
+/** Command-line options that replace the model file's [estimation] choices (docs/model-file.md). */
 final class EstimationOverrides {
     @Option(names = "--method", paramLabel = "METHOD",
             description = "one-step, two-step, iterated or continuously-updated")

@@ -13,7 +13,8 @@ import org.jtransforms.fft.DoubleFFT_1D;
  * sum is formed in the Toeplitz form U'WU/T by FFT, never lag by lag (see
  * {@link #longRun(Kernel, double, DMatrixRMaj)}).
  *
- * <p>The divisor is T, not T - j (DESIGN.md section 3). Not thread-safe.
+ * <p>The divisor is T, not T - j, as in Newey and West (1987) and Andrews (1991); it keeps S positive
+ * semidefinite for kernels with a non-negative spectral window. Not thread-safe.
  */
 public final class Autocovariances {
 

@@ -4,7 +4,8 @@ import java.util.List;
 
 /**
  * Automatic bandwidth rules. Both take a row-major series u (n x K) and per-column weights; the
- * fine print (DESIGN.md section 3) was chosen to agree with R's sandwich package.
+ * fine print (AR(1) by OLS with an intercept, residual variance RSS/(n - 1); divisor T after
+ * prewhitening) was chosen to agree with R's sandwich package.
  */
 final class Bandwidths {
 

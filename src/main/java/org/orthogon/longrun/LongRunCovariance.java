@@ -45,7 +45,7 @@ public final class LongRunCovariance {
             return new LongRunEstimate(s, options.kernel(), b, options.centered(), false, warnings);
         }
         Prewhitening pw = Prewhitening.fit(ac.series(), ac.observations(), ac.columns());
-        // The residuals' autocovariances still divide by the original T (DESIGN.md fine print).
+        // The residuals' autocovariances still divide by the original T, as R's sandwich does (n.orig).
         Autocovariances residuals = Autocovariances.ofSeries(pw.residuals, pw.rows, ac.columns(),
                 ac.observations(), ac.centered());
         double b = bandwidth(residuals, options, moments.numRows, true, warnings);
@@ -142,7 +142,10 @@ public final class LongRunCovariance {
         return smallest;
     }
 
-    /** DESIGN.md: every moment column counts the same in the automatic bandwidth rules. */
+    /**
+     * Every moment column counts the same in the automatic bandwidth rules: unlike a regression's
+     * intercept score, which sandwich down-weights, no moment column has a special role.
+     */
     private static double[] equalWeights(Autocovariances ac) {
         double[] w = new double[ac.columns()];
         java.util.Arrays.fill(w, 1.0);

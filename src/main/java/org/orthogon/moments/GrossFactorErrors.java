@@ -10,7 +10,7 @@ import java.util.List;
  * rate separately and appends it as the last asset, so it cannot be forgotten.
  *
  * <p>Affine in θ = (a, b): ∂e_i/∂a = R_i and ∂e_i/∂b_k = -F_k R_i, so {@link #isLinear()} is true and
- * the closed form of DESIGN.md section 3 applies.
+ * the closed-form GMM estimate θ = -(D'WD)^{-1} D'W g_T(0) applies.
  */
 public final class GrossFactorErrors extends NamedErrors {
     private final double[][] grossReturns; // [t][i], risk-free appended last

@@ -6,7 +6,7 @@ import org.ejml.data.DMatrixRMaj;
 /**
  * A set of moment conditions E[f_t(θ)] = 0 evaluated on one aligned sample.
  *
- * <p>Conventions (DESIGN.md section 3): the contributions form a T x K matrix F whose row t is
+ * <p>Conventions (Hansen 1982; docs/methods.md): the contributions form a T x K matrix F whose row t is
  * f_t(θ)'; the sample mean is g_T(θ) = (1/T) Σ_t f_t(θ); the Jacobian is D = ∂g_T/∂θ', a K x P
  * matrix. Implementations are pure: they never read files or print, and they never mutate the data
  * they were built from.

@@ -17,7 +17,7 @@ import tools.jackson.databind.node.ObjectNode;
 import tools.jackson.databind.SerializationFeature;
 
 /**
- * The results JSON of DESIGN.md section 4. Field names are a contract: add, never rename. Numbers
+ * The results JSON described in docs/output.md. Field names are a contract: add, never rename. Numbers
  * are decimals at full double precision; a value that does not exist (a p-value with zero degrees
  * of freedom) is written as null.
  */
@@ -48,7 +48,7 @@ public final class JsonResults {
         number(longRun, "bandwidth", fit.longRun().bandwidth());
         longRun.put("prewhitened", fit.longRun().prewhitened());
         longRun.put("centered", fit.longRun().centered());
-        // T/(T-P) is always reported, applied only when the model file asks (DESIGN.md: off by default).
+        // T/(T-P) is always reported, applied only when the model file asks (off by default).
         longRun.put("small_sample_adjusted", spec.estimation().smallSample());
         number(longRun, "small_sample_factor", LongRunCovariance.smallSampleFactor(fit.observations(),
                 fit.parameters().size()));

@@ -14,7 +14,7 @@ import org.orthogon.spec.SampleInfo;
 import tools.jackson.databind.node.ArrayNode;
 import tools.jackson.databind.node.ObjectNode;
 
-/** Stability across sample periods as console text and as the stability JSON of DESIGN.md section 4. */
+/** Stability across sample periods as console text and as the stability JSON of docs/output.md. */
 public final class StabilityReport {
     private static final double[] LEVELS = {0.10, 0.05, 0.01};
 

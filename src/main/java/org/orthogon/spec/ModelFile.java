@@ -33,7 +33,7 @@ import tools.jackson.databind.JsonNode;
 import tools.jackson.dataformat.toml.TomlMapper;
 
 /**
- * Reads a model file (TOML, DESIGN.md section 4) into a {@link RunSpec}. Every refusal is an
+ * Reads a model file (TOML; every key is described in docs/model-file.md) into a {@link RunSpec}. Every refusal is an
  * {@link InputException} naming the model file, the line of the offending key and the fix; unknown
  * keys are errors with a "did you mean" suggestion, never silently ignored.
  */

@@ -167,7 +167,7 @@ public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec mod
         }
     }
 
-    /** The model families this version knows (DESIGN.md section 4). */
+    /** The model families this version knows (docs/model-file.md). */
     public enum Family {
         POWER_UTILITY("power-utility"),
         RECURSIVE_UTILITY("recursive-utility"),

@@ -85,7 +85,7 @@ class StabilityTest {
         assertThat(test.statistic()).isCloseTo(direct, within(1e-10 * direct));
         assertThat(test.df()).isEqualTo(2);
 
-        // Two periods: (θ1 - θ2)'(V1 + V2)^{-1}(θ1 - θ2) exactly as DESIGN.md states it.
+        // Two periods: (θ1 - θ2)'(V1 + V2)^{-1}(θ1 - θ2) as in Andrews and Fair (1988), eq. 3.6.
         List<Stability.PeriodFit> two = Stability.periods(moments, new double[1], dates, List.of(180), TWO_STEP);
         double diff = two.get(0).fit().estimates()[0] - two.get(1).fit().estimates()[0];
         double sum = two.get(0).fit().covariance().get(0, 0) + two.get(1).fit().covariance().get(0, 0);
