@@ -331,15 +331,9 @@ public final class Autocovariances {
         return n == 1;
     }
 
-    /** The last lag that can carry weight: floor(b) for truncated kernels, every lag for QS. */
+    /** The last lag that can carry weight, from the kernel's support (every lag for QS). */
     int lastLag(Kernel kernel, double bandwidth) {
-        if (kernel == Kernel.NONE || bandwidth == 0.0) {
-            return 0;
-        }
-        if (!kernel.isTruncated()) {
-            return maxLag();
-        }
-        return (int) Math.min(maxLag(), Math.floor(bandwidth));
+        return kernel.lastWeightedLag(bandwidth, maxLag());
     }
 
     /** Computes Γ_j up to lag {@code last}, growing the store once so the lag loop never allocates. */

@@ -95,7 +95,7 @@ public final class LongRunCovariance {
         } else {
             throw new AssertionError(rule);
         }
-        if (kernel.isTruncated() && b > ac.maxLag() + 1) {
+        if (kernel.isTruncated() && b * kernel.support() > ac.maxLag() + 1) {
             warnings.add("bandwidth " + b + " reaches beyond the " + ac.maxLag()
                     + " lags the sample has; all available lags were used");
         }
@@ -182,7 +182,7 @@ public final class LongRunCovariance {
     static void validate(DMatrixRMaj f) {
         Objects.requireNonNull(f, "moments");
         if (f.numRows < 2) {
-            throw new IllegalArgumentException("long-run covariance needs at least 2 observations (rows), got T="
+            throw new LongRunException("long-run covariance needs at least 2 observations (rows), got T="
                     + f.numRows);
         }
         if (f.numCols < 1) {
@@ -193,7 +193,7 @@ public final class LongRunCovariance {
             for (int c = 0; c < f.numCols; c++) {
                 double v = f.data[r * f.numCols + c];
                 if (!Double.isFinite(v)) {
-                    throw new IllegalArgumentException("moment matrix holds " + v + " at row " + r + ", column "
+                    throw new LongRunException("moment matrix holds " + v + " at row " + r + ", column "
                             + c + " (0-based); all values must be finite");
                 }
             }

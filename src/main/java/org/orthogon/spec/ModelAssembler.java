@@ -240,7 +240,7 @@ public final class ModelAssembler {
         ObservationErrors errors;
         try {
             errors = new ExpressionSdfErrors(formula, parameters, columns, aligned.assetRows(), assets.columnNames(),
-                    grossPayoff ? ExpressionSdfErrors.PayoffKind.GROSS : ExpressionSdfErrors.PayoffKind.EXCESS);
+                    grossPayoff ? org.orthogon.moments.Payoff.GROSS : org.orthogon.moments.Payoff.EXCESS);
         } catch (ExpressionSdfErrors.ExpressionException e) {
             List<String> known = new ArrayList<>(parameters);
             known.addAll(columns.keySet());
