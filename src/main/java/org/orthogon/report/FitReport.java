@@ -183,13 +183,8 @@ public final class FitReport {
         return new MeanPayoffs(CrossSectionFit.of(prepared.moments(), fit.estimates()), payoffLabel(spec));
     }
 
-    /** What the moments price: gross returns (E[m R] = 1) or excess returns (E[m R^e] = 0). */
+    /** What the moments price: "gross return" (E[m R] = 1) or "excess return" (E[m R^e] = 0). */
     static String payoffLabel(RunSpec spec) {
-        boolean gross = switch (spec.model().family()) {
-            case POWER_UTILITY, RECURSIVE_UTILITY -> true;
-            case LINEAR_FACTOR -> spec.model().form().equals("gross");
-            case EXPRESSION -> spec.model().payoff().equals("gross");
-        };
-        return gross ? "gross return" : "excess return";
+        return spec.model().payoff().label();
     }
 }

@@ -88,7 +88,7 @@ public final class Manifest {
 
     private static void options(ObjectNode node, RunSpec.EstimationSpec e) {
         node.put("method", e.method().id());
-        node.put("initial_weight", e.initialWeight());
+        node.put("initial_weight", e.initialWeight().id());
         node.put("kernel", e.kernel().id());
         BandwidthRule rule = e.bandwidth();
         if (rule instanceof BandwidthRule.Lags lags) {

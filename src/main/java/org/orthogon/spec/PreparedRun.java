@@ -1,6 +1,8 @@
 package org.orthogon.spec;
 
+import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Map;
 import org.orthogon.moments.MomentModel;
 
 /**
@@ -14,19 +16,35 @@ import org.orthogon.moments.MomentModel;
  * @param inputs      every data file read
  * @param assets      the N test assets (before any scaling by instruments)
  * @param dates       the label of every observation of the moments, in order (T of them)
+ * @param warnings    what a reader must know before estimating (many moments, exact identification)
+ * @param bounds      closed bounds by parameter name: the family's defaults and the model file's
  */
 public record PreparedRun(MomentModel moments, double[] startValues, SampleInfo sample, List<String> notes,
-        List<InputSummary> inputs, List<String> assets, List<String> dates) {
+        List<InputSummary> inputs, List<String> assets, List<String> dates, List<Warning> warnings,
+        Map<String, double[]> bounds) {
     public PreparedRun {
         startValues = startValues.clone();
         notes = List.copyOf(notes);
         inputs = List.copyOf(inputs);
         assets = List.copyOf(assets);
         dates = List.copyOf(dates);
+        warnings = List.copyOf(warnings);
+        bounds = copy(bounds);
     }
 
     @Override
     public double[] startValues() {
         return startValues.clone();
+    }
+
+    @Override
+    public Map<String, double[]> bounds() {
+        return copy(bounds);
+    }
+
+    private static Map<String, double[]> copy(Map<String, double[]> bounds) {
+        Map<String, double[]> copy = new LinkedHashMap<>();
+        bounds.forEach((name, range) -> copy.put(name, range.clone()));
+        return java.util.Collections.unmodifiableMap(copy);
     }
 }
