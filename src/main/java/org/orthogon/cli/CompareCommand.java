@@ -2,7 +2,6 @@ package org.orthogon.cli;
 
 import java.nio.file.Path;
 import java.time.Instant;
-import java.util.Map;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
@@ -74,7 +73,7 @@ final class CompareCommand implements Callable<Integer> {
             folder = ReportFiles.publish(output.target(folderName), output.overwrite,
                     ComparisonDocument.build(result, sampleLine), results,
                     new Manifest.Run("compare", commandSpec.commandLine().getParseResult().originalArgs(),
-                            Version.current(), started, Map.of()),
+                            Version.current(), started, Manifest.seeds(runs.stream().map(FittedRun::fit).toList())),
                     runs.stream().map(FittedRun::spec).toList(), runs.stream().map(run -> run.prepared().inputs()).toList());
         }
         if (!output.quiet) {

@@ -128,7 +128,7 @@ final class StabilityCommand implements Callable<Integer> {
             folder = ReportFiles.publish(output.target(folderName), output.overwrite,
                     StabilityDocument.build(spec, prepared.sample(), results, warnings), json,
                     new Manifest.Run("stability", commandSpec.commandLine().getParseResult().originalArgs(),
-                            Version.current(), started, noSupWald ? Map.of() : Map.of("sup_wald", simulationSeed)),
+                            Version.current(), started, seeds(results, noSupWald ? null : simulationSeed)),
                     List.of(spec), List.of(prepared.inputs()));
         }
         if (!output.quiet) {
@@ -139,6 +139,20 @@ final class StabilityCommand implements Callable<Integer> {
             commandSpec.commandLine().getOut().flush();
         }
         return Main.EXIT_OK;
+    }
+
+    /** The sup-Wald simulation's seed (when it ran) and the HJ seed of every period and window fit. */
+    private static Map<String, Long> seeds(List<StabilityReport.Variant> variants, Long supWald) {
+        List<org.orthogon.gmm.GmmFit> fits = new ArrayList<>();
+        for (StabilityReport.Variant variant : variants) {
+            variant.periods().forEach(period -> fits.add(period.fit()));
+            variant.rolling().stream().filter(window -> window.fit() != null).forEach(window -> fits.add(window.fit()));
+        }
+        Map<String, Long> seeds = new java.util.TreeMap<>(Manifest.seeds(fits));
+        if (supWald != null) {
+            seeds.put("sup_wald", supWald);
+        }
+        return seeds;
     }
 
     private RunSpec withCommandLine(RunSpec spec) {

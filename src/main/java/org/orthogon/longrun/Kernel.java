@@ -230,6 +230,11 @@ public enum Kernel {
         return Arrays.stream(values()).map(Kernel::id).collect(Collectors.joining(", "));
     }
 
+    /** The identifiers of the kernels that use a bandwidth, comma-separated, in declaration order. */
+    public static String idsWithBandwidth() {
+        return Arrays.stream(values()).filter(Kernel::usesBandwidth).map(Kernel::id).collect(Collectors.joining(", "));
+    }
+
     /**
      * The bandwidth b that puts weight on lags 1..L and none beyond: b = L + 1 for Bartlett, Parzen
      * and Tukey-Hanning (so Bartlett weights are 1 - j/(L+1), Newey-West 1987), b = L for the

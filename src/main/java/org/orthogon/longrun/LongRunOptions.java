@@ -5,7 +5,6 @@ import java.util.Arrays;
 import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
-import java.util.stream.Collectors;
 
 /**
  * The choices that define a long-run covariance estimate. Only combinations that can be estimated
@@ -74,8 +73,10 @@ public record LongRunOptions(Kernel kernel, BandwidthRule bandwidth, boolean cen
     }
 
     private static String kernelsWith(boolean neweyWest) {
-        return Arrays.stream(Kernel.values()).filter(k -> k.usesBandwidth() && k.neweyWest().isPresent() == neweyWest)
-                .map(Kernel::id).collect(Collectors.joining(", "));
+        List<String> ids = Arrays.stream(Kernel.values())
+                .filter(k -> k.usesBandwidth() && k.neweyWest().isPresent() == neweyWest).map(Kernel::id).toList();
+        return ids.size() < 2 ? String.join("", ids)
+                : String.join(", ", ids.subList(0, ids.size() - 1)) + " and " + ids.get(ids.size() - 1);
     }
 
     /**

@@ -31,8 +31,9 @@ public final class CheckReport {
                 .append(String.join(", ", prepared.moments().parameterNames())).append('\n');
         out.append(String.format(Locale.ROOT, "  sample      %s to %s, T = %d %s observations%n", prepared.sample().start(),
                 prepared.sample().end(), prepared.sample().observations(), prepared.sample().frequency()));
-        out.append(String.format(Locale.ROOT, "  sizes       N = %d test assets, K = %d moments, P = %d parameters, "
-                + "K - P = %d overidentifying restrictions%n", prepared.assets().size(), k, p, k - p));
+        out.append(String.format(Locale.ROOT, "  sizes       N = %s, K = %s, P = %s, K - P = %s%n",
+                ConsoleReport.count(prepared.assets().size(), "test asset"), ConsoleReport.count(k, "moment"),
+                ConsoleReport.count(p, "parameter"), ConsoleReport.count(k - p, "overidentifying restriction")));
         out.append("  returns     ").append(spec.data().returnsKind().id()).append(", units ").append(spec.data().units().id())
                 .append(" (every return-like series passed the unit and kind checks)\n");
         out.append("  estimation  ").append(e.method().id()).append(", kernel ").append(e.kernel().id()).append(", ")

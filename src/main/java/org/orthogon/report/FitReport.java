@@ -10,6 +10,8 @@ import org.orthogon.gmm.GmmFit;
 import org.orthogon.gmm.ParameterEstimate;
 import org.orthogon.gmm.PricingError;
 import org.orthogon.analysis.CrossSectionFit;
+import org.orthogon.analysis.SensitivityGrid;
+import org.orthogon.spec.FittedRun;
 import org.orthogon.spec.PreparedRun;
 import org.orthogon.spec.RunSpec;
 import tools.jackson.databind.node.ObjectNode;
@@ -23,15 +25,25 @@ public final class FitReport {
     private FitReport() {
     }
 
-    /** The document of one fit. */
+    /** The document of one fit, without restriction tests or sensitivity grid. */
     public static Report build(RunSpec spec, PreparedRun prepared, GmmFit fit) {
+        return build(spec, prepared, fit, List.of(), List.of());
+    }
+
+    /**
+     * The document of one fit with the Wald tests of its restrictions and the rows of its
+     * kernel-and-bandwidth sensitivity grid (either list may be empty).
+     */
+    public static Report build(RunSpec spec, PreparedRun prepared, GmmFit fit,
+            List<FittedRun.RestrictionTest> restrictions, List<SensitivityGrid.SensitivityRow> sensitivity) {
         var sample = prepared.sample();
         Report.Builder report = Report.builder(spec.title())
                 .subtitle(String.format(Locale.ROOT, "%s SDF, %s GMM; %s sample %s to %s, T = %d",
                         spec.model().family().id(), fit.method().id(), sample.frequency(), sample.start(),
                         sample.end(), sample.observations()))
-                .subtitle(String.format(Locale.ROOT, "N = %d test assets, K = %d moments, P = %d parameters",
-                        prepared.assets().size(), fit.momentCount(), fit.parameters().size()))
+                .subtitle("N = " + ConsoleReport.count(prepared.assets().size(), "test asset") + ", K = "
+                        + ConsoleReport.count(fit.momentCount(), "moment") + ", P = "
+                        + ConsoleReport.count(fit.parameters().size(), "parameter"))
                 .subtitle("Long-run covariance: " + ConsoleReport.describeLongRun(fit));
         report.section("Parameters").table(parameters(fit));
         report.section("Overidentifying restrictions").table(overidentification(fit));
@@ -40,11 +52,33 @@ public final class FitReport {
         if (means != null) {
             report.chart(scatter(prepared.assets(), means));
         }
+        if (!restrictions.isEmpty()) {
+            report.section("Linear restrictions").table(restrictions(restrictions));
+        }
+        if (!sensitivity.isEmpty()) {
+            report.section("Sensitivity to the long-run covariance")
+                    .table(SensitivityReport.table(sensitivity, fit.parameterNames()));
+        }
         if (!prepared.notes().isEmpty()) {
             report.section("Data preparation");
             prepared.notes().forEach(report::paragraph);
         }
-        return report.warnings(fit.warnings()).build();
+        List<String> warnings = new ArrayList<>();
+        prepared.warnings().forEach(warning -> warnings.add(warning.text()));
+        warnings.addAll(fit.warnings());
+        return report.warnings(warnings).build();
+    }
+
+    /** The Wald tests of the model file's and the command line's linear restrictions. */
+    static Table restrictions(List<FittedRun.RestrictionTest> tests) {
+        Table.Builder table = Table.builder("restrictions", "Wald tests of linear restrictions", "restrictions",
+                "statistic", "df", "p-value");
+        for (FittedRun.RestrictionTest test : tests) {
+            table.row(Cell.text(test.restrictions()), Cell.fixed(test.test().statistic(), 3),
+                    Cell.count(test.test().df()), Cell.fixed(test.test().pValue(), 4));
+        }
+        return table.note("Wald statistics with the reported parameter covariance; chi-square with one degree of "
+                + "freedom per restriction.").build();
     }
 
     /**
@@ -55,8 +89,10 @@ public final class FitReport {
      * @return the folder written
      */
     public static Path writeFolder(Path target, boolean overwrite, ObjectNode results, RunSpec spec,
-            PreparedRun prepared, GmmFit fit, Manifest.Run run) {
-        return ReportFiles.publish(target, overwrite, build(spec, prepared, fit), results, run, List.of(spec),
+            PreparedRun prepared, GmmFit fit, List<FittedRun.RestrictionTest> restrictions,
+            List<SensitivityGrid.SensitivityRow> sensitivity, Manifest.Run run) {
+        return ReportFiles.publish(target, overwrite, build(spec, prepared, fit, restrictions, sensitivity), results,
+                run, List.of(spec),
                 List.of(prepared.inputs()));
     }
 

@@ -11,6 +11,7 @@ import org.orthogon.longrun.LongRunCovariance;
 import org.orthogon.spec.FittedRun;
 import org.orthogon.spec.RunSpec;
 import org.orthogon.spec.SampleInfo;
+import org.orthogon.spec.Warning;
 import tools.jackson.databind.json.JsonMapper;
 import tools.jackson.databind.node.ArrayNode;
 import tools.jackson.databind.node.ObjectNode;
@@ -111,6 +112,19 @@ public final class JsonResults {
             number(node, "statistic", restriction.test().statistic());
             node.put("df", restriction.test().df());
             number(node, "p_value", restriction.test().pValue());
+        }
+    }
+
+    /**
+     * Adds the warnings found while the model file and its data were prepared as the field
+     * "input_warnings": [{"code", "text"}] (codes such as "many-moments" are stable; scripts may match them).
+     */
+    public static void addInputWarnings(ObjectNode results, List<Warning> warnings) {
+        ArrayNode array = results.putArray("input_warnings");
+        for (Warning warning : warnings) {
+            ObjectNode node = array.addObject();
+            node.put("code", warning.code());
+            node.put("text", warning.text());
         }
     }
 

@@ -60,8 +60,8 @@ public final class ModelAssembler {
         int observations = aligned.observations();
         if (k < p) {
             throw InputException.in(spec.modelFile()).line(spec.lineOf("model", "family"))
-                    .problem("the model has " + p + " parameters " + names + " but only " + k + " moments, so the "
-                            + "parameters are not identified", "price more test assets, scale the moments by "
+                    .problem("the model has " + p + " parameters " + names + " but only " + k + " moment"
+                            + (k == 1 ? "" : "s") + ", so the parameters are not identified", "price more test assets, scale the moments by "
                             + "instruments (instrument_columns), or estimate fewer parameters");
         }
         if (observations <= k) {

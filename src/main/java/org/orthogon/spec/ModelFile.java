@@ -289,7 +289,8 @@ public final class ModelFile {
         boolean given = node.has("lags") || node.has("bandwidth");
         if (given && !kernel.usesBandwidth() && !rule.equals(new BandwidthRule.Lags(0))) {
             throw error("estimation", key, "kernel = \"" + kernel.id() + "\" uses no lags, so " + key
-                    + " has no effect", "remove " + key + ", or choose a kernel (" + Kernel.ids() + ")");
+                    + " has no effect", "remove " + key + ", or choose a kernel that uses lags (" + Kernel.idsWithBandwidth()
+                    + ")");
         }
         String conflict = LongRunOptions.conflict(kernel, rule).orElse(null);
         if (conflict != null) {

@@ -150,8 +150,8 @@ public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec mod
         if (bandwidth != null) {
             if (!newKernel.usesBandwidth() && !(bandwidth instanceof BandwidthRule.Lags lags && lags.lags() == 0)) {
                 throw InputException.general().problem(bandwidthOption + " cannot be used with " + kernelSource
-                        + ": that kernel uses no lags", "leave out " + bandwidthOption + ", or choose a kernel ("
-                        + Kernel.ids() + ")");
+                        + ": that kernel uses no lags", "leave out " + bandwidthOption + ", or choose a kernel that uses lags ("
+                        + Kernel.idsWithBandwidth() + ")");
             }
             String conflict = LongRunOptions.conflict(newKernel, bandwidth).orElse(null);
             if (conflict != null) {
