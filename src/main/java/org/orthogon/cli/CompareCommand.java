@@ -71,7 +71,7 @@ final class CompareCommand implements Callable<Integer> {
         Path folder = null;
         if (output.requested()) {
             folder = ReportFiles.publish(output.target(folderName), output.overwrite,
-                    ComparisonDocument.build(result, sampleLine), results,
+                    ComparisonDocument.build(result, sampleLine, folderName), results,
                     new Manifest.Run("compare", commandSpec.commandLine().getParseResult().originalArgs(),
                             Version.current(), started, Manifest.seeds(runs.stream().map(FittedRun::fit).toList())),
                     runs.stream().map(FittedRun::spec).toList(), runs.stream().map(run -> run.prepared().inputs()).toList());

@@ -37,7 +37,8 @@ public final class FitReport {
     public static Report build(RunSpec spec, PreparedRun prepared, GmmFit fit,
             List<FittedRun.RestrictionTest> restrictions, List<SensitivityGrid.SensitivityRow> sensitivity) {
         var sample = prepared.sample();
-        Report.Builder report = Report.builder(spec.title())
+        Report.Builder report = Report.builder(spec.title()).key(spec.modelFile().getFileName().toString()
+                .replaceFirst("\\.toml$", ""))
                 .subtitle(String.format(Locale.ROOT, "%s SDF, %s GMM; %s sample %s to %s, T = %d",
                         spec.model().family().id(), fit.method().id(), sample.frequency(), sample.start(),
                         sample.end(), sample.observations()))
@@ -104,7 +105,7 @@ public final class FitReport {
         List<ConfidenceInterval> intervals = fit.confidenceIntervals();
         for (int i = 0; i < fit.parameters().size(); i++) {
             ParameterEstimate p = fit.parameters().get(i);
-            table.row(Cell.text(p.name()), Cell.number(p.estimate()), Cell.number(p.stdError()),
+            table.row(Cell.parameter(p.name()), Cell.number(p.estimate()), Cell.number(p.stdError()),
                     Cell.fixed(p.tStat(), 2), Cell.fixed(p.pValue(), 4), Cell.number(intervals.get(i).lower()),
                     Cell.number(intervals.get(i).upper()));
         }

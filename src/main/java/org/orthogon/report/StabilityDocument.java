@@ -20,6 +20,7 @@ public final class StabilityDocument {
     public static Report build(RunSpec spec, SampleInfo sample, List<StabilityReport.Variant> variants,
             List<String> warnings) {
         Report.Builder report = Report.builder("Stability: " + spec.title())
+                .key(spec.modelFile().getFileName().toString().replaceFirst("\\.toml$", "") + "-stability")
                 .subtitle(String.format(Locale.ROOT, "Full sample %s %s to %s, T = %d; each period fitted separately",
                         sample.frequency(), sample.start(), sample.end(), sample.observations()));
         for (int v = 0; v < variants.size(); v++) {
@@ -66,7 +67,7 @@ public final class StabilityDocument {
         }
         List<ParameterEstimate> first = periods.get(0).fit().parameters();
         for (int i = 0; i < first.size(); i++) {
-            List<Cell> row = new ArrayList<>(List.of(Cell.text(first.get(i).name())));
+            List<Cell> row = new ArrayList<>(List.of(Cell.parameter(first.get(i).name())));
             for (PeriodFit period : periods) {
                 ParameterEstimate p = period.fit().parameters().get(i);
                 row.add(Cell.number(p.estimate()));
