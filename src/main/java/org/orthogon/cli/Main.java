@@ -39,7 +39,7 @@ public final class Main {
         });
         String unknownVerb = unknownVerb(line, args);
         if (unknownVerb != null) {
-            err.println("usage error: " + unknownVerb);
+            err.println("error: " + unknownVerb);
             err.println("  fix: start with one of the verbs " + String.join(", ", verbs(line))
                     + ", e.g. `orthogon fit MODEL.toml`; see `orthogon --help`");
             err.flush();

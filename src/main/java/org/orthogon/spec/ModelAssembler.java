@@ -80,8 +80,11 @@ public final class ModelAssembler {
                             + "(kernel %s, %s%s) needs at least %d with K = %d moments", observations,
                             longRun.kernel().id(), spec.estimation().bandwidthLabel(),
                             longRun.prewhiten() ? ", VAR(1) prewhitening" : "", needed, k),
-                            "use a longer sample, a fixed bandwidth or lag count, or no prewhitening (in [estimation] "
-                                    + "or on the command line)");
+                            longRun.prewhiten() && observations < longRun.withPrewhiten(false).minimumObservations(k)
+                                    ? "use a longer sample, or a fixed bandwidth or lag count without prewhitening"
+                                    : longRun.prewhiten() ? "use a longer sample, or switch prewhitening off (prewhiten "
+                                            + "= false, or --no-prewhiten)"
+                                    : "use a longer sample, or a fixed bandwidth or lag count");
         }
         checkRestrictions(spec, names);
         List<Period> dates = aligned.sample().dates();

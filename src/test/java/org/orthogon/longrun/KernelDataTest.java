@@ -136,6 +136,32 @@ class KernelDataTest {
         assertThat(neweyWest).isEqualTo(expected.get(1));
     }
 
+    @ParameterizedTest
+    @EnumSource(Kernel.class)
+    void theModelFileReferenceDescribesEveryKernelAsItIs(Kernel kernel) throws java.io.IOException {
+        String docs = java.nio.file.Files.readString(java.nio.file.Path.of("docs/model-file.md"));
+        String row = docs.lines().filter(line -> line.startsWith("| `" + kernel.id() + "` |")).findFirst()
+                .orElseThrow(() -> new AssertionError("docs/model-file.md has no row for kernel " + kernel.id()));
+        String[] cells = row.split("\\|");
+        assertThat(cells[3].strip()).as("PSD column").isEqualTo(kernel.guaranteesPositiveSemidefinite() ? "yes" : "no");
+        String lags = cells[4].strip();
+        if (!kernel.usesBandwidth()) {
+            assertThat(lags).startsWith("(no lags");
+        } else if (!kernel.acceptsLagCount()) {
+            assertThat(lags).startsWith("refused");
+        } else {
+            assertThat(lags).isEqualTo(kernel.bandwidthForLags(7) == 8.0 ? "b = L + 1" : "b = L");
+        }
+        BandwidthRule rule = kernel.defaultBandwidth();
+        String expected = !kernel.usesBandwidth() ? "no bandwidth" : rule instanceof BandwidthRule.Lags l
+                ? "`lags = " + l.lags() + "`" : "`bandwidth = \"andrews\"`";
+        assertThat(cells[5].strip()).as("default").isEqualTo(expected);
+        List<String> rules = new ArrayList<>();
+        kernel.andrews().filter(c -> kernel.usesBandwidth()).ifPresent(c -> rules.add("`andrews`"));
+        kernel.neweyWest().ifPresent(c -> rules.add("`newey-west`"));
+        assertThat(cells[6].strip()).as("automatic rules").isEqualTo(rules.isEmpty() ? "none" : String.join(", ", rules));
+    }
+
     private static DMatrixRMaj weightMatrix(Kernel kernel, double b, int t) {
         DMatrixRMaj w = new DMatrixRMaj(t, t);
         for (int i = 0; i < t; i++) {
