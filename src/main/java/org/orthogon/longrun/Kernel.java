@@ -20,30 +20,34 @@ import java.util.stream.Collectors;
  */
 public enum Kernel {
     /** No lags: the heteroskedasticity-consistent S = Γ_0 (k(0) = 1, k(x) = 0 otherwise). */
-    NONE("none", "no kernel: S = Γ_0, heteroskedasticity-consistent", 0.0, true, 0, null, null),
+    NONE("none", "no kernel: S = Γ_0, heteroskedasticity-consistent", 0.0, true, 0, null, null,
+            new BandwidthRule.Lags(0)),
     /**
      * Truncated (White-Domowitz): k(x) = 1 for |x| ≤ 1, 0 otherwise. With b = L it is the
      * equal-weight estimator of Hansen and Hodrick (1980) for moments built from overlapping
      * returns; not guaranteed positive semidefinite.
      */
     TRUNCATED("truncated", "equal weights up to lag b (Hansen-Hodrick 1980); not always PSD", 1.0, false, 0,
-            new AutomaticConstants(2, 0.6611, Double.NaN), null),
+            new AutomaticConstants(2, 0.6611, Double.NaN), null, new BandwidthRule.Lags(4)),
     /** Bartlett (Newey-West 1987): k(x) = 1 - |x| for |x| ≤ 1, 0 otherwise. */
     BARTLETT("bartlett", "1 - |x| (Newey-West 1987)", 1.0, true, 1,
-            new AutomaticConstants(1, 1.1447, Double.NaN), new AutomaticConstants(1, 1.1447, 2.0 / 9.0)),
+            new AutomaticConstants(1, 1.1447, Double.NaN), new AutomaticConstants(1, 1.1447, 2.0 / 9.0),
+            new BandwidthRule.Lags(4)),
     /** Parzen: 1 - 6x² + 6|x|³ for |x| ≤ 1/2, 2(1 - |x|)³ for 1/2 ≤ |x| ≤ 1, 0 otherwise. */
     PARZEN("parzen", "Parzen, a cubic spline", 1.0, true, 1,
-            new AutomaticConstants(2, 2.6614, Double.NaN), new AutomaticConstants(2, 2.6614, 4.0 / 25.0)),
+            new AutomaticConstants(2, 2.6614, Double.NaN), new AutomaticConstants(2, 2.6614, 4.0 / 25.0),
+            new BandwidthRule.Lags(4)),
     /** Tukey-Hanning: k(x) = (1 + cos(πx))/2 for |x| ≤ 1, 0 otherwise. */
     TUKEY_HANNING("tukey-hanning", "(1 + cos πx)/2; not always PSD", 1.0, false, 1,
-            new AutomaticConstants(2, 1.7462, Double.NaN), null),
+            new AutomaticConstants(2, 1.7462, Double.NaN), null, new BandwidthRule.Lags(4)),
     /**
      * Quadratic spectral: k(x) = 25/(12π²x²) [sin(6πx/5)/(6πx/5) - cos(6πx/5)], k(0) = 1.
      * Not truncated: every lag gets a weight.
      */
     QUADRATIC_SPECTRAL("quadratic-spectral", "weights every lag; optimal among PSD kernels (Andrews 1991)",
             Double.POSITIVE_INFINITY, true, 0,
-            new AutomaticConstants(2, 1.3221, Double.NaN), new AutomaticConstants(2, 1.3221, 2.0 / 25.0));
+            new AutomaticConstants(2, 1.3221, Double.NaN), new AutomaticConstants(2, 1.3221, 2.0 / 25.0),
+            new BandwidthRule.Andrews());
 
     /**
      * The constants of an automatic bandwidth rule for one kernel: b = c (α(q) n)^{1/(2q+1)} in
@@ -68,9 +72,10 @@ public enum Kernel {
     private final int lagOffset;
     private final AutomaticConstants andrews;
     private final AutomaticConstants neweyWest;
+    private final BandwidthRule defaultBandwidth;
 
     Kernel(String id, String summary, double support, boolean positiveSemidefinite, int lagOffset,
-            AutomaticConstants andrews, AutomaticConstants neweyWest) {
+            AutomaticConstants andrews, AutomaticConstants neweyWest, BandwidthRule defaultBandwidth) {
         this.id = id;
         this.summary = summary;
         this.support = support;
@@ -78,6 +83,7 @@ public enum Kernel {
         this.lagOffset = lagOffset;
         this.andrews = andrews;
         this.neweyWest = neweyWest;
+        this.defaultBandwidth = defaultBandwidth;
     }
 
     /**
@@ -200,15 +206,13 @@ public enum Kernel {
     }
 
     /**
-     * The bandwidth rule used when the model file names none: no lags for {@link #NONE}; an automatic
-     * Andrews (1991) bandwidth for the quadratic spectral kernel, which a lag count cannot set; four
-     * lags for the truncated kernels (common practice for monthly data, no source).
+     * The bandwidth rule used when the model file names none, the kernel's own: no lags for
+     * {@link #NONE}; an automatic Andrews (1991) bandwidth for the quadratic spectral kernel, which a
+     * lag count cannot set; four lags for the kernels with support [-1, 1] (common practice for
+     * monthly data, no source).
      */
     public BandwidthRule defaultBandwidth() {
-        if (this == NONE) {
-            return new BandwidthRule.Lags(0);
-        }
-        return acceptsLagCount() ? new BandwidthRule.Lags(4) : new BandwidthRule.Andrews();
+        return defaultBandwidth;
     }
 
     /**
