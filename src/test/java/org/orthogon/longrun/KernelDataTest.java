@@ -153,8 +153,10 @@ class KernelDataTest {
             assertThat(lags).isEqualTo(kernel.bandwidthForLags(7) == 8.0 ? "b = L + 1" : "b = L");
         }
         BandwidthRule rule = kernel.defaultBandwidth();
-        String expected = !kernel.usesBandwidth() ? "no bandwidth" : rule instanceof BandwidthRule.Lags l
-                ? "`lags = " + l.lags() + "`" : "`bandwidth = \"andrews\"`";
+        String expected = !kernel.usesBandwidth() ? "no bandwidth"
+                : rule instanceof BandwidthRule.Lags l ? "`lags = " + l.lags() + "`"
+                : rule instanceof BandwidthRule.Fixed b ? "`bandwidth = " + b.bandwidth() + "`"
+                : rule instanceof BandwidthRule.Andrews ? "`bandwidth = \"andrews\"`" : "`bandwidth = \"newey-west\"`";
         assertThat(cells[5].strip()).as("default").isEqualTo(expected);
         List<String> rules = new ArrayList<>();
         kernel.andrews().filter(c -> kernel.usesBandwidth()).ifPresent(c -> rules.add("`andrews`"));
