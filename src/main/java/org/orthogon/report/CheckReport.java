@@ -34,8 +34,8 @@ public final class CheckReport {
         out.append(String.format(Locale.ROOT, "  sizes       N = %s, K = %s, P = %s, K - P = %s%n",
                 ConsoleReport.count(prepared.assets().size(), "test asset"), ConsoleReport.count(k, "moment"),
                 ConsoleReport.count(p, "parameter"), ConsoleReport.count(k - p, "overidentifying restriction")));
-        out.append("  returns     ").append(spec.data().returnsKind().id()).append(", units ").append(spec.data().units().id())
-                .append(" (every return-like series passed the unit and kind checks)\n");
+        out.append("  returns     ").append(spec.data().returnsKind().id()).append(", units ")
+                .append(spec.data().units().id()).append(" (every return-like series passed the unit and kind checks)\n");
         out.append("  estimation  ").append(e.method().id()).append(", kernel ").append(e.kernel().id()).append(", ")
                 .append(e.bandwidthLabel()).append(e.centered() ? ", centered" : ", uncentered")
                 .append(e.prewhiten() ? ", prewhitened" : "").append("\n");

@@ -46,15 +46,17 @@ public final class LatexTables {
         out.append("% ").append(escape(table.caption())).append(" (written by Orthogon)\n");
         for (int part = 0; part < floats; part++) {
             out.append("\\begin{table}[htbp]\n\\centering\n");
-            out.append("\\caption{").append(escape(table.caption())).append(part == 0 ? "" : " (continued)").append("}\n");
-            out.append("\\label{tab:").append(key).append('-').append(table.id()).append(part == 0 ? "" : "-" + (part + 1))
+            String suffix = part == 0 ? "" : "-" + (part + 1);
+            out.append("\\caption{").append(escape(table.caption())).append(part == 0 ? "" : " (continued)")
                     .append("}\n");
+            out.append("\\label{tab:").append(key).append('-').append(table.id()).append(suffix).append("}\n");
             // Shrunk to the text width when wider, never enlarged.
             out.append("\\resizebox{\\ifdim\\width>\\linewidth\\linewidth\\else\\width\\fi}{!}{%\n");
             out.append("\\begin{tabular}{").append(spec).append("}\n\\toprule\n");
             row(out, header);
             out.append("\\midrule\n");
-            for (List<Cell> cells : table.rows().subList(part * rowsPerFloat, Math.min(rows, (part + 1) * rowsPerFloat))) {
+            int to = Math.min(rows, (part + 1) * rowsPerFloat);
+            for (List<Cell> cells : table.rows().subList(part * rowsPerFloat, to)) {
                 List<String> main = new ArrayList<>();
                 List<String> under = new ArrayList<>();
                 for (int c : shown) {

@@ -61,8 +61,9 @@ public final class ModelAssembler {
         if (k < p) {
             throw InputException.in(spec.modelFile()).line(spec.lineOf("model", "family"))
                     .problem("the model has " + p + " parameters " + names + " but only " + k + " moment"
-                            + (k == 1 ? "" : "s") + ", so the parameters are not identified", "price more test assets, scale the moments by "
-                            + "instruments (instrument_columns), or estimate fewer parameters");
+                            + (k == 1 ? "" : "s") + ", so the parameters are not identified",
+                            "price more test assets, scale the moments by instruments (instrument_columns), or "
+                                    + "estimate fewer parameters");
         }
         if (observations <= k) {
             int line = spec.lineOf("data", spec.data().start().isPresent() ? "start" : "returns");
