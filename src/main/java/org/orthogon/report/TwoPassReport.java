@@ -42,8 +42,8 @@ public final class TwoPassReport {
         double[][] betas = ts.betas();
         for (int i = 0; i < ts.alphas().size(); i++) {
             Alpha a = ts.alphas().get(i);
-            List<String> row = new ArrayList<>(List.of(a.asset(), ConsoleReport.number(a.estimate()),
-                    ConsoleReport.number(a.stdError()), ConsoleReport.fixed(a.tStat(), 2),
+            List<String> row = new ArrayList<>(List.of(a.asset(), ConsoleReport.fixed(a.estimate(), 6),
+                    ConsoleReport.fixed(a.stdError(), 6), ConsoleReport.fixed(a.tStat(), 2),
                     ConsoleReport.fixed(a.pValue(), 4)));
             for (double b : betas[i]) {
                 row.add(ConsoleReport.fixed(b, 3));
@@ -209,8 +209,9 @@ public final class TwoPassReport {
         double[][] betas = ts.betas();
         for (int i = 0; i < ts.alphas().size(); i++) {
             Alpha a = ts.alphas().get(i);
-            List<Cell> row = new ArrayList<>(List.of(Cell.text(a.asset()), Cell.number(a.estimate()),
-                    Cell.number(a.stdError()), Cell.fixed(a.tStat(), 2), Cell.fixed(a.pValue(), 4)));
+            // Fixed decimals: alphas of one scale side by side, which exponents would hide.
+            List<Cell> row = new ArrayList<>(List.of(Cell.text(a.asset()), Cell.fixed(a.estimate(), 6),
+                    Cell.fixed(a.stdError(), 6), Cell.fixed(a.tStat(), 2), Cell.fixed(a.pValue(), 4)));
             for (double b : betas[i]) {
                 row.add(Cell.fixed(b, 3));
             }
