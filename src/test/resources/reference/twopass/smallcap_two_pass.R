@@ -158,6 +158,43 @@ delta_check <- function(R, f, w, Vkrs, r2se, label) {
   put(paste0(label, ".delta_check.max_relative_gap"), max(rel, relr2))
 }
 
+# Tests of equal cross-sectional R² (KRS 2013, section III), OLS with the intercept. eta = O^-1 lambda are
+# the prices of covariance risk; their influence is O^-1 (h_lambda,t - ((f_t - fbar)(f_t - fbar)' - O) eta).
+r2_parts <- function(R, f) {
+  f <- as.matrix(f); T <- nrow(R); N <- ncol(R); K <- ncol(f)
+  Rbar <- colMeans(R); Rd <- sweep(R, 2, Rbar); mu <- colMeans(f); fd <- sweep(f, 2, mu); Om <- crossprod(fd) / T
+  B <- t(sapply(seq_len(N), function(i) coef(lm(R[, i] ~ f))[-1])); if (K == 1) B <- t(B)
+  X <- cbind(1, B); H <- solve(crossprod(X)); A <- H %*% t(X)
+  gt <- R %*% t(A); g <- colMeans(gt); gd <- sweep(gt, 2, g)
+  lam <- g[-1]; e <- Rbar - drop(X %*% g); u <- drop(Rd %*% e); wt <- drop(fd %*% solve(Om, lam))
+  phid <- gd; phid[, -1] <- phid[, -1] - fd
+  z <- cbind(0, fd %*% solve(Om))
+  h <- gd - phid * wt + (z %*% t(H)) * u
+  e0 <- Rbar - mean(Rbar); Q0 <- sum(e0^2); rho2 <- 1 - sum(e^2) / Q0
+  n <- 2 * ((1 - rho2) * drop(Rd %*% e0) - u * (1 - wt)) / Q0
+  eta <- drop(solve(Om, lam))
+  ieta <- t(sapply(seq_len(T), function(s) solve(Om, h[s, -1] - (fd[s, ] %o% fd[s, ] - Om) %*% eta)))
+  if (K == 1) ieta <- t(ieta)
+  C <- B %*% Om; Hc <- solve(crossprod(cbind(1, C)))[-1, -1, drop = FALSE]
+  list(T = T, rho2 = rho2, n = n, eta = eta, ieta = ieta, Hc = Hc, Q0 = Q0, names = colnames(f))
+}
+A <- r2_parts(R, fac[, "MKT", drop = FALSE]); Bm <- r2_parts(R, fac)
+put("r2test.nested.r2_restricted", A$rho2); put("r2test.nested.r2_unrestricted", Bm$rho2)
+put("r2test.nested.statistic", Bm$T * (Bm$rho2 - A$rho2))
+x2 <- 2
+quad <- Bm$T * Bm$eta[x2]^2 / Bm$Hc[x2, x2] / Bm$Q0
+cat(sprintf("nested: T(R2_B - R2_A) %.12g, T eta2' Hc22^-1 eta2 / Q0 %.12g\n", Bm$T * (Bm$rho2 - A$rho2), quad))
+V22 <- sum(Bm$ieta[, x2]^2) / Bm$T
+put("r2test.nested.limit_weight", V22 / Bm$Hc[x2, x2] / Bm$Q0)
+S <- r2_parts(R, fac[, "SMM", drop = FALSE])
+d <- A$n - S$n
+put("r2test.nonnested.r2_first", A$rho2); put("r2test.nonnested.r2_second", S$rho2)
+put("r2test.nonnested.statistic", (A$rho2 - S$rho2) / (sqrt(sum(d^2)) / A$T))
+est <- c(A$eta, S$eta); inf <- cbind(A$ieta, S$ieta)
+Vs <- crossprod(inf) / A$T^2
+put("r2test.nonnested.wald", drop(t(est) %*% solve(Vs, est)))
+put("r2test.nonnested.wald_p_value", pchisq(drop(t(est) %*% solve(Vs, est)), 2, lower.tail = FALSE))
+
 two_pass(R, fac[, "MKT", drop = FALSE], "capm")
 two_pass(R, fac, "two_factor")
 out <- data.frame(name = names(values), value = sapply(values, fmt))
