@@ -4,8 +4,15 @@ import java.nio.file.Path;
 import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Map;
 import java.util.concurrent.Callable;
+import org.orthogon.analysis.CommonWeightComparison;
 import org.orthogon.analysis.ModelComparison;
+import org.orthogon.analysis.VolatilityBound;
+import org.orthogon.gmm.EstimationException;
+import org.orthogon.report.CommonWeightReport;
+import org.orthogon.twopass.EqualR2Test;
+import org.orthogon.twopass.Weighting;
 import org.orthogon.data.InputException;
 import org.orthogon.report.CheckReport;
 import org.orthogon.report.ComparisonDocument;
@@ -64,26 +71,77 @@ final class CompareCommand implements Callable<Integer> {
                 + sample.observations() + ")";
         List<ObjectNode> fits = runs.stream()
                 .map(run -> JsonResults.fit(run.spec(), run.prepared().sample(), run.fit())).toList();
+        CommonWeightReport common = commonWeight(runs, entries);
         ObjectNode results = ComparisonReport.json(result, fits);
+        common.addTo(results);
         if (output.json != null) {
             OutputFiles.writeAtomically(output.json, JsonResults.text(results));
         }
         Path folder = null;
         if (output.requested()) {
             folder = ReportFiles.publish(output.target(folderName), output.overwrite,
-                    ComparisonDocument.build(result, sampleLine, folderName), results,
+                    ComparisonDocument.build(result, sampleLine, common, folderName), results,
                     new Manifest.Run("compare", commandSpec.commandLine().getParseResult().originalArgs(),
-                            Version.current(), started, Manifest.seeds(runs.stream().map(FittedRun::fit).toList())),
+                            Version.current(), started, seeds(runs)),
                     runs.stream().map(FittedRun::spec).toList(), runs.stream().map(run -> run.prepared().inputs()).toList());
         }
         if (!output.quiet) {
-            commandSpec.commandLine().getOut().print(ComparisonReport.render(result, sampleLine));
+            commandSpec.commandLine().getOut().print(ComparisonReport.render(result, sampleLine, common.render()));
             if (folder != null) {
                 commandSpec.commandLine().getOut().println("\nReport folder: " + CheckReport.display(folder));
             }
             commandSpec.commandLine().getOut().flush();
         }
         return Main.EXIT_OK;
+    }
+
+    /**
+     * The models at the common second-moment weight with the Kan-Robotti tests, the KRS tests of equal
+     * two-pass R² between linear-factor models, and the volatility bound; seeds and draws of the simulated
+     * limits come from the first model file's Hansen-Jagannathan settings.
+     */
+    private static CommonWeightReport commonWeight(List<FittedRun> runs, List<ModelComparison.Entry> entries) {
+        RunSpec first = runs.get(0).spec();
+        long seed = first.estimation().hjSeed();
+        int draws = first.estimation().hjDraws();
+        CommonWeightComparison.Result common = CommonWeightComparison.compare(entries,
+                first.estimation().longRunOptions(), seed, draws);
+        List<String> notes = new ArrayList<>(common.notes());
+        List<EqualR2Test.Result> r2Tests = new ArrayList<>();
+        for (int i = 0; i < runs.size(); i++) {
+            for (int j = i + 1; j < runs.size(); j++) {
+                FittedRun a = runs.get(i);
+                FittedRun b = runs.get(j);
+                if (a.prepared().factorSample().isEmpty() || b.prepared().factorSample().isEmpty()
+                        || !a.spec().model().instrumentColumns().isEmpty()) {
+                    continue;
+                }
+                try {
+                    r2Tests.add(EqualR2Test.compare(a.spec().title(), a.prepared().factorSample().get(),
+                            b.spec().title(), b.prepared().factorSample().get(), Weighting.OLS, true, seed, draws));
+                } catch (IllegalArgumentException | EstimationException e) {
+                    notes.add("no test of equal R2 for " + a.spec().title() + " and " + b.spec().title() + ": "
+                            + e.getMessage());
+                }
+            }
+        }
+        VolatilityBound bound = null;
+        if (!common.models().isEmpty()) {
+            bound = VolatilityBound.of(common.payoffModel(), common.models().get(0).estimates(),
+                    common.models().stream().map(CommonWeightComparison.ModelAtCommonWeight::title).toList(),
+                    common.models().stream().map(CommonWeightComparison.ModelAtCommonWeight::discountFactor).toList());
+        }
+        return new CommonWeightReport(common, r2Tests, bound, notes);
+    }
+
+    /**
+     * Every seed the comparison drew with: each model's Hansen-Jagannathan p-value, and the simulated limits
+     * of the common-weight tests, which use the first model file's HJ seed.
+     */
+    private static Map<String, Long> seeds(List<FittedRun> runs) {
+        Map<String, Long> seeds = new java.util.TreeMap<>(Manifest.seeds(runs.stream().map(FittedRun::fit).toList()));
+        seeds.put("common_weight", runs.get(0).spec().estimation().hjSeed());
+        return seeds;
     }
 
     private static void requireSameAssetsAndSample(FittedRun first, FittedRun other) {

@@ -13,7 +13,7 @@ import picocli.CommandLine.Command;
  */
 @Command(name = "orthogon", mixinStandardHelpOptions = true, versionProvider = Version.class,
         description = "Tests whether a stochastic discount factor prices a set of test assets, by GMM.",
-        subcommands = {FitCommand.class, CompareCommand.class, StabilityCommand.class, CheckCommand.class,
+        subcommands = {FitCommand.class, CompareCommand.class, TwoPassCommand.class, StabilityCommand.class, CheckCommand.class,
             SimulateCommand.class, CommandLine.HelpCommand.class})
 public final class Main {
     public static final int EXIT_OK = 0;

@@ -58,4 +58,14 @@ public interface ObservationErrors {
      * @throws IllegalArgumentException if a row is outside 0..T-1 or no row is given
      */
     ObservationErrors select(int[] rows);
+
+    /**
+     * The errors over which the Hansen-Jagannathan distance is taken: these errors (the default), a
+     * family's own choice (the demeaned linear SDF prices its N assets with μ = f̄, leaving out the
+     * factor-mean moments), or none for moments that price no payoff with an SDF. Their parameters are
+     * a subset of {@link #parameterNames()}, by name.
+     */
+    default java.util.Optional<ObservationErrors> distanceErrors() {
+        return java.util.Optional.of(this);
+    }
 }

@@ -184,6 +184,16 @@ public abstract class SdfErrors implements ObservationErrors {
         return payoffs[t * pricedNames.size() + i];
     }
 
+    /** A copy of the priced payoffs x_t as rows, [t][i] (for a family that builds related errors from them). */
+    protected final double[][] pricedPayoffRows() {
+        int n = pricedNames.size();
+        double[][] rows = new double[observations][];
+        for (int t = 0; t < observations; t++) {
+            rows[t] = java.util.Arrays.copyOfRange(payoffs, t * n, (t + 1) * n);
+        }
+        return rows;
+    }
+
     /** The entries {@code rows} of a per-observation array. */
     protected static double[] pick(double[] values, int[] rows) {
         double[] out = new double[rows.length];

@@ -18,11 +18,15 @@ public final class ComparisonDocument {
     }
 
     public static Report build(ModelComparison.Result result, String sampleLine) {
-        return build(result, sampleLine, "compare");
+        return build(result, sampleLine, null, "compare");
     }
 
-    /** The comparison's document; {@code key} labels its LaTeX tables (the output folder's name). */
-    public static Report build(ModelComparison.Result result, String sampleLine, String key) {
+    /**
+     * The comparison's document, with the comparison at the common weight when {@code common} is given;
+     * {@code key} labels its LaTeX tables (the output folder's name).
+     */
+    public static Report build(ModelComparison.Result result, String sampleLine, CommonWeightReport common,
+            String key) {
         List<ModelSummary> models = result.models();
         Report.Builder report = Report.builder("Model comparison").key(key)
                 .subtitle("The same test assets, " + sampleLine);
@@ -45,6 +49,9 @@ public final class ComparisonDocument {
             }
             report.chart(new Chart.Scatter("realised-vs-implied-" + (m + 1), "(" + (m + 1) + ") "
                     + models.get(m).title(), "model-implied mean", "realised mean", points));
+        }
+        if (common != null) {
+            common.addTo(report);
         }
         List<String> warnings = new ArrayList<>();
         for (int m = 0; m < models.size(); m++) {

@@ -6,6 +6,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.Optional;
 import org.orthogon.data.ReturnTransforms;
 import org.orthogon.data.SeriesTable;
 import org.orthogon.moments.DemeanedFactorErrors;
@@ -14,11 +15,15 @@ import org.orthogon.moments.LinearFactorErrors;
 import org.orthogon.moments.ObservationErrors;
 import org.orthogon.moments.Payoff;
 import org.orthogon.moments.ScaledFactors;
+import org.orthogon.twopass.FactorSample;
 
 /**
  * {@code family = "linear-factor"}: a linear SDF in the factors (Cochrane 2005, "Asset Pricing",
  * revised edition, chapter 13), in one of three forms, optionally with factors scaled by lagged
  * instruments (a conditional model, section 8.3 there).
+ *
+ * <p>The assembled model also carries the excess returns and factors on the moment rows
+ * ({@link FamilyModel#factorSample()}), which `two-pass` and the risk premia of `fit` use.
  *
  * @param factorColumns     the factors, columns of the [data] factors file
  * @param form              excess, demeaned or gross (see {@link Form})
@@ -117,6 +122,7 @@ public record LinearFactorSpec(List<String> factorColumns, Form form, List<Strin
         }
         ObservationErrors errors;
         Map<String, Double> defaults = new LinkedHashMap<>();
+        FactorSample sample = null;
         switch (form) {
             case GROSS -> {
                 double[][] rows = aligned.assetRows();
@@ -131,6 +137,13 @@ public record LinearFactorSpec(List<String> factorColumns, Form form, List<Strin
                 errors = new GrossFactorErrors(risky, rate, factorRows, assets.columnNames().subList(0, n), rateName,
                         factorNames);
                 defaults.put("a", 1.0);
+                double[][] excess = new double[rows.length][n];
+                for (int t = 0; t < rows.length; t++) {
+                    for (int i = 0; i < n; i++) {
+                        excess[t][i] = risky[t][i] - rate[t];
+                    }
+                }
+                sample = new FactorSample(assets.columnNames().subList(0, n), factorNames, excess, factorRows);
             }
             case DEMEANED -> {
                 DemeanedFactorErrors demeaned = new DemeanedFactorErrors(aligned.assetRows(), factorRows,
@@ -145,6 +158,9 @@ public record LinearFactorSpec(List<String> factorColumns, Form form, List<Strin
                     factorNames);
             default -> throw new AssertionError(form);
         }
-        return new FamilyModel(errors, aligned, defaults);
+        if (sample == null) {
+            sample = new FactorSample(assets.columnNames(), factorNames, aligned.assetRows(), factorRows);
+        }
+        return new FamilyModel(errors, aligned, defaults, Optional.of(sample));
     }
 }

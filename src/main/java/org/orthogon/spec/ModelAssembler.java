@@ -93,7 +93,8 @@ public final class ModelAssembler {
                 observations, dates.get(0).frequency().id());
         List<String> labels = dates.subList(aligned.first(), aligned.last() + 1).stream().map(Period::label).toList();
         return new PreparedRun(moments, start, sample, data.notes(), data.inputs(),
-                errors.assetNames().subList(0, errors.pricedAssets()), labels, warnings(k, p, observations), bounds);
+                errors.assetNames().subList(0, errors.pricedAssets()), labels, warnings(k, p, observations), bounds,
+                family.factorSample());
     }
 
     private static List<Warning> warnings(int k, int p, int t) {

@@ -3,7 +3,9 @@ package org.orthogon.spec;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
 import org.orthogon.moments.MomentModel;
+import org.orthogon.twopass.FactorSample;
 
 /**
  * A model file turned into estimable moment conditions on one aligned sample.
@@ -18,10 +20,12 @@ import org.orthogon.moments.MomentModel;
  * @param dates       the label of every observation of the moments, in order (T of them)
  * @param warnings    what a reader must know before estimating (many moments, exact identification)
  * @param bounds      closed bounds by parameter name: the family's defaults and the model file's
+ * @param factorSample linear-factor models: the test assets' excess returns and the factors on the same
+ *                    rows, for the two-pass regressions and the risk premia; empty for other families
  */
 public record PreparedRun(MomentModel moments, double[] startValues, SampleInfo sample, List<String> notes,
         List<InputSummary> inputs, List<String> assets, List<String> dates, List<Warning> warnings,
-        Map<String, double[]> bounds) {
+        Map<String, double[]> bounds, Optional<FactorSample> factorSample) {
     public PreparedRun {
         startValues = startValues.clone();
         notes = List.copyOf(notes);

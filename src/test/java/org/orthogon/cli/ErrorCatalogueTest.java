@@ -37,7 +37,7 @@ class ErrorCatalogueTest {
     Path root;
 
     /**
-     * One catalogue entry. {@code verb} is the command run: "fit" and "stability" get the model file and
+     * One catalogue entry. {@code verb} is the command run: "fit", "stability" and "two-pass" get the model file and
      * --json before the extra arguments; any other verb gets only the extra arguments.
      */
     record Case(String id, String verb, String model, Setup setup, List<String> extraArgs, int exit, String file,
@@ -281,6 +281,15 @@ class ErrorCatalogueTest {
                 "program's own name")), "fit", "model.toml"));
         cases.add(withArgs(onVerb("simulate", refused("simulate-over-existing-files", POWER, cli -> { }, "demo-data", 0,
                 "already holds", "--overwrite")), "--out", "{root}/demo-data", "--years", "1"));
+        // two-pass
+        cases.add(onVerb("two-pass", refused("two-pass-not-linear-factor", POWER, cli -> { }, POWER, 13,
+                "power-utility", "linear-factor")));
+        cases.add(onVerb("two-pass", refused("two-pass-scaled-moments", THREE, replaceInModel(THREE, "[estimation]",
+                "instrument_columns = [\"const\"]\n\n[estimation]"), THREE, 17, "instrument_columns")));
+        cases.add(onVerb("two-pass", refused("two-pass-too-few-assets", THREE, replaceInModel(THREE, "[model]",
+                "assets = [\"S1T1\", \"S1T2\", \"S1T3\", \"S1T4\"]\n\n[model]"), THREE, 17, "K + 2")));
+        cases.add(onVerb("two-pass", refused("two-pass-short-sample", THREE, replaceInModel(THREE, "[model]",
+                "start = \"2023-11\"\n\n[model]"), THREE, 13, "T > N + K")));
         // Command line
         cases.add(withArgs(refused("unknown-method-option", POWER, cli -> { }, "three-step", 0, "one-step"), "--method",
                 "three-step"));
@@ -301,7 +310,7 @@ class ErrorCatalogueTest {
         c.setup().apply(cli);
         Path json = caseRoot.resolve("results.json");
         List<String> args = new ArrayList<>(List.of(c.verb()));
-        if (c.verb().equals("fit") || c.verb().equals("stability")) {
+        if (List.of("fit", "stability", "two-pass").contains(c.verb())) {
             args.addAll(List.of(cli.models.resolve(c.model()).normalize().toString(), "--json", json.toString()));
         }
         c.extraArgs().forEach(arg -> args.add(arg.replace("{root}", caseRoot.toString())));

@@ -136,6 +136,22 @@ class RowSelectionTest {
                 .contributions(c.theta()).data);
     }
 
+    @org.junit.jupiter.api.Test
+    void theDistanceMomentsOfAWindowAreTheWindowOfTheDistanceMoments() {
+        // The demeaned form's distance moments fix μ at the sample factor means f̄ (Kan and Robotti 2009), so
+        // a window takes its own f̄: cutting then taking the distance moments, or the other way round, agree.
+        FamilyFixtures data = new FamilyFixtures(5, T, ASSETS.size(), FACTORS.size());
+        ScaledMoments model = ScaledMoments.unscaled(new DemeanedFactorErrors(data.excess, data.factors, ASSETS,
+                FACTORS));
+        double[] b = {1.5, -0.7};
+        MomentModel cutFirst = model.rows(7, 31).distanceMoments().orElseThrow();
+        MomentModel cutLast = model.distanceMoments().orElseThrow().rows(7, 31);
+        assertThat(cutFirst.contributions(b).data).isEqualTo(cutLast.contributions(b).data);
+        assertThat(cutFirst.meanJacobian(b).data).isEqualTo(cutLast.meanJacobian(b).data);
+        MomentModel all = model.distanceMoments().orElseThrow();
+        assertThat(all.select(IntStream.range(0, T).toArray()).contributions(b).data).isEqualTo(all.contributions(b).data);
+    }
+
     @ParameterizedTest(name = "{0}, {1}")
     @MethodSource("families")
     void rowsOutsideTheSampleAreRefused(Case c, ScaledMoments model) {
