@@ -93,13 +93,15 @@ public final class ModelAssembler {
                 observations, dates.get(0).frequency().id());
         List<String> labels = dates.subList(aligned.first(), aligned.last() + 1).stream().map(Period::label).toList();
         return new PreparedRun(moments, start, sample, data.notes(), data.inputs(),
-                errors.assetNames().subList(0, errors.pricedAssets()), labels, warnings(k, p, observations), bounds,
+                errors.assetNames().subList(0, errors.pricedAssets()), labels,
+                warnings(k, p, observations, moments.fixedSelection().isPresent()), bounds,
                 family.factorSample());
     }
 
-    private static List<Warning> warnings(int k, int p, int t) {
+    /** A fixed selection (the beta-pricing system) inverts no K x K weight, so many moments cost it nothing. */
+    private static List<Warning> warnings(int k, int p, int t, boolean fixedSelection) {
         List<Warning> warnings = new ArrayList<>();
-        if (k > t / 10.0) {
+        if (k > t / 10.0 && !fixedSelection) {
             warnings.add(new Warning("many-moments", String.format(Locale.ROOT, "K = %d moments against T = %d "
                     + "observations (K > T/10): the efficient weight will be estimated imprecisely and the J test "
                     + "over-rejects in samples this size; prefer fewer assets or instruments, or a one-step fit", k, t)));
