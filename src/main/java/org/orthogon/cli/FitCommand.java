@@ -66,7 +66,7 @@ final class FitCommand implements Callable<Integer> {
             JsonResults.addRestrictions(results, restrictions);
         }
         if (sensitivity) {
-            SensitivityReport.addTo(results, grid, prepared.moments().parameterNames());
+            SensitivityReport.addTo(results, grid, FitReport.mainParameters(spec, prepared.moments().parameterNames()));
         }
         var premia = run.riskPremia();
         premia.ifPresent(p -> JsonResults.addRiskPremia(results, p));
@@ -85,7 +85,8 @@ final class FitCommand implements Callable<Integer> {
             out.print(ConsoleReport.render(spec, prepared, fit, restrictions));
             premia.ifPresent(p -> out.print(ConsoleReport.renderRiskPremia(p)));
             if (sensitivity) {
-                out.print("\n" + SensitivityReport.render(grid, prepared.moments().parameterNames()));
+                out.print("\n" + SensitivityReport.render(grid, FitReport.mainParameters(spec,
+                        prepared.moments().parameterNames())));
             }
             if (folder != null) {
                 out.println("\nReport folder: " + CheckReport.display(folder));

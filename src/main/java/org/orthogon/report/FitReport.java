@@ -70,7 +70,7 @@ public final class FitReport {
         }
         if (!sensitivity.isEmpty()) {
             report.section("Sensitivity to the long-run covariance")
-                    .table(SensitivityReport.table(sensitivity, fit.parameterNames()));
+                    .table(SensitivityReport.table(sensitivity, mainParameters(spec, fit.parameterNames())));
         }
         if (!prepared.notes().isEmpty()) {
             report.section("Data preparation");
@@ -80,6 +80,15 @@ public final class FitReport {
         prepared.warnings().forEach(warning -> warnings.add(warning.text()));
         warnings.addAll(fit.warnings());
         return report.warnings(warnings).build();
+    }
+
+    /**
+     * The parameters a report lists in its main tables: all of them, except for the beta-pricing system,
+     * whose λ (and λ_0) come first and whose a and β have a table of their own.
+     */
+    public static List<String> mainParameters(RunSpec spec, List<String> names) {
+        return spec.model() instanceof org.orthogon.spec.BetaPricingSpec beta
+                ? names.subList(0, beta.crossSectionCoefficients()) : names;
     }
 
     /** The Wald tests of the model file's and the command line's linear restrictions. */
