@@ -1,0 +1,48 @@
+package org.orthogon.gmm;
+
+import org.ejml.data.DMatrixRMaj;
+import org.orthogon.moments.MomentModel;
+
+/**
+ * A model linear in θ seen through one estimation: its Jacobian D is the same at every θ (that is what
+ * {@link MomentModel#isLinear()} promises) and its payoffs do not depend on θ at all, so both are formed
+ * once and handed out as copies, instead of once per step, per standard error and per
+ * Hansen-Jagannathan minimisation. Everything else goes to the model.
+ */
+final class LinearModelView extends ForwardingMomentModel {
+    private DMatrixRMaj jacobian;
+    private DMatrixRMaj payoffs;
+
+    LinearModelView(MomentModel base) {
+        super(base);
+    }
+
+    @Override
+    public DMatrixRMaj meanJacobian(double[] theta) {
+        if (theta.length != base.parameterCount()) {
+            return base.meanJacobian(theta);
+        }
+        if (jacobian == null) {
+            jacobian = base.meanJacobian(new double[theta.length]);
+        }
+        return jacobian.copy();
+    }
+
+    @Override
+    public void contributions(double[] theta, DMatrixRMaj out) {
+        base.contributions(theta, out);
+    }
+
+    @Override
+    public DMatrixRMaj rowJacobians(double[] theta) {
+        return base.rowJacobians(theta);
+    }
+
+    @Override
+    public DMatrixRMaj payoffs() {
+        if (payoffs == null) {
+            payoffs = base.payoffs();
+        }
+        return payoffs.copy();
+    }
+}
