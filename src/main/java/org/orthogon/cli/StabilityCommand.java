@@ -77,6 +77,9 @@ final class StabilityCommand implements Callable<Integer> {
     @Mixin
     ResultOptions output;
 
+    @Mixin
+    ThreadsOption threads;
+
     @picocli.CommandLine.Spec
     picocli.CommandLine.Model.CommandSpec commandSpec;
 
@@ -85,6 +88,7 @@ final class StabilityCommand implements Callable<Integer> {
         Instant started = Instant.now();
         String folderName = ResultOptions.stem(modelFile) + "-stability";
         output.checkEarly(folderName);
+        int threadCount = threads.count();
         RunSpec spec = withCommandLine(overrides.apply(ModelFile.read(modelFile)));
         RunSpec.StabilitySpec choices = spec.stability();
         PreparedRun prepared = ModelAssembler.prepare(spec);
@@ -108,7 +112,7 @@ final class StabilityCommand implements Callable<Integer> {
                 try (Progress progress = Progress.start("sup-Wald, " + options.method().id(), candidates)) {
                     sup = Stability.supWald(prepared.moments(), prepared.startValues(), prepared.dates(), options,
                             choices.trimming(), seed == null ? SupWaldDistribution.DEFAULT_SEED : seed,
-                            SupWaldDistribution.DEFAULT_DRAWS, progress);
+                            SupWaldDistribution.DEFAULT_DRAWS, threadCount, progress);
                 }
             }
             List<Stability.PeriodFit> rolling = List.of();
@@ -116,7 +120,7 @@ final class StabilityCommand implements Callable<Integer> {
                 int windowCount = (prepared.moments().observations() - choices.window().get()) / choices.step() + 1;
                 try (Progress progress = Progress.start("windows, " + options.method().id(), windowCount)) {
                     rolling = Stability.windows(prepared.moments(), prepared.startValues(), prepared.dates(), options,
-                            choices.window().get(), choices.step(), choices.expanding(), progress);
+                            choices.window().get(), choices.step(), choices.expanding(), threadCount, progress);
                 }
             }
             results.add(new StabilityReport.Variant(label, periods,

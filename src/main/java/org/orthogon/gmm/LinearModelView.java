@@ -29,6 +29,11 @@ final class LinearModelView extends ForwardingMomentModel {
     }
 
     @Override
+    public DMatrixRMaj meanMoments(double[] theta) {
+        return base.meanMoments(theta);
+    }
+
+    @Override
     public void contributions(double[] theta, DMatrixRMaj out) {
         base.contributions(theta, out);
     }
