@@ -34,7 +34,10 @@ public record SupWaldDistribution(int parameters, double trimming, long seed, in
         sorted = sorted.clone();
     }
 
-    /** Simulates the distribution for p parameters and trimming π0 (drawn once per process for each argument set). */
+    /**
+     * Simulates the distribution for p parameters and trimming π0 (drawn once per process for each
+     * argument set; the default seed and draws at trimming 0.15 come from {@link SupWaldTables}).
+     */
     public static SupWaldDistribution simulate(int parameters, double trimming, long seed, int draws) {
         return simulate(parameters, trimming, seed, draws, 1);
     }
@@ -45,7 +48,8 @@ public record SupWaldDistribution(int parameters, double trimming, long seed, in
      */
     public static SupWaldDistribution simulate(int parameters, double trimming, long seed, int draws, int threads) {
         return DRAWN.computeIfAbsent(parameters + "/" + trimming + "/" + seed + "/" + draws,
-                key -> draw(parameters, trimming, seed, draws, threads));
+                key -> SupWaldTables.stored(parameters, trimming, seed, draws)
+                        .orElseGet(() -> draw(parameters, trimming, seed, draws, threads)));
     }
 
     /** 32-bit generator words per batch of draws handed to the threads (16 MB). */

@@ -72,4 +72,30 @@ class SupWaldSimulationTest {
         assertThat(SupWaldDistribution.draw(parameters, trimming, seed, 300, 2, 7 * 4 * parameters * 2000).sorted())
                 .containsExactly(expected);
     }
+
+    @ParameterizedTest
+    @ValueSource(ints = {1, 3})
+    void storedDefaultTablesAreTheSimulationBitForBit(int parameters) {
+        SupWaldDistribution stored = SupWaldTables.stored(parameters, 0.15, SupWaldDistribution.DEFAULT_SEED,
+                SupWaldDistribution.DEFAULT_DRAWS).orElseThrow();
+        SupWaldDistribution drawn = SupWaldDistribution.draw(parameters, 0.15, SupWaldDistribution.DEFAULT_SEED,
+                SupWaldDistribution.DEFAULT_DRAWS, 2);
+        assertThat(stored.sorted()).containsExactly(drawn.sorted());
+    }
+
+    @org.junit.jupiter.api.Test
+    void everyStoredTableIsComplete() {
+        for (int p = 1; p <= SupWaldTables.LARGEST_P; p++) {
+            double[] sorted = SupWaldTables.stored(p, 0.15, SupWaldDistribution.DEFAULT_SEED,
+                    SupWaldDistribution.DEFAULT_DRAWS).orElseThrow().sorted();
+            assertThat(sorted).hasSize(SupWaldDistribution.DEFAULT_DRAWS).isSorted();
+            assertThat(sorted[0]).isPositive();
+        }
+        // anything else is simulated
+        assertThat(SupWaldTables.stored(3, 0.2, SupWaldDistribution.DEFAULT_SEED, SupWaldDistribution.DEFAULT_DRAWS))
+                .isEmpty();
+        assertThat(SupWaldTables.stored(3, 0.15, 5L, SupWaldDistribution.DEFAULT_DRAWS)).isEmpty();
+        assertThat(SupWaldTables.stored(SupWaldTables.LARGEST_P + 1, 0.15, SupWaldDistribution.DEFAULT_SEED,
+                SupWaldDistribution.DEFAULT_DRAWS)).isEmpty();
+    }
 }
