@@ -6,6 +6,7 @@ import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.CommonOps_DDRM;
 import org.ejml.dense.row.factory.DecompositionFactory_DDRM;
 import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
+import org.orthogon.longrun.CrossProducts;
 import org.orthogon.longrun.LongRunOptions;
 import org.orthogon.moments.MomentModel;
 
@@ -97,7 +98,12 @@ public final class HansenJagannathan {
         DMatrixRMaj middle = new DMatrixRMaj(k, k);
         CommonOps_DDRM.subtract(gInverse, m, middle);
         DMatrixRMaj lower = Matrices.choleskyLower(s, "S at the Hansen-Jagannathan estimate");
-        DMatrixRMaj a = Matrices.quadraticForm(lower, middle);
+        // A = L'(ML), symmetric: only its upper triangle is summed
+        DMatrixRMaj ml = new DMatrixRMaj(k, k);
+        CommonOps_DDRM.mult(middle, lower, ml);
+        DMatrixRMaj a = new DMatrixRMaj(k, k);
+        CrossProducts.addUpper(lower.data, ml.data, k, k, a.data);
+        CrossProducts.symmetricFromUpper(a.data, k, 1.0);
         EigenDecomposition_F64<DMatrixRMaj> eig = DecompositionFactory_DDRM.eig(k, false, true);
         if (!eig.decompose(a)) {
             throw new IllegalStateException("eigen-decomposition of the Hansen-Jagannathan limit failed");

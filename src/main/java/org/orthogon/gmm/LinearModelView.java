@@ -7,11 +7,13 @@ import org.orthogon.moments.MomentModel;
  * A model linear in θ seen through one estimation: its Jacobian D is the same at every θ (that is what
  * {@link MomentModel#isLinear()} promises) and its payoffs do not depend on θ at all, so both are formed
  * once and handed out as copies, instead of once per step, per standard error and per
- * Hansen-Jagannathan minimisation. Everything else goes to the model.
+ * Hansen-Jagannathan minimisation. Everything else goes to the model. One estimation uses a view, on one
+ * thread.
  */
 final class LinearModelView extends ForwardingMomentModel {
     private DMatrixRMaj jacobian;
     private DMatrixRMaj payoffs;
+    private DMatrixRMaj work;
 
     LinearModelView(MomentModel base) {
         super(base);
@@ -30,7 +32,15 @@ final class LinearModelView extends ForwardingMomentModel {
 
     @Override
     public DMatrixRMaj meanMoments(double[] theta) {
-        return base.meanMoments(theta);
+        if (!(base instanceof org.orthogon.moments.ScaledMoments)) {
+            return base.meanMoments(theta);
+        }
+        // the same column means, from one work matrix filled in place instead of a new T x K matrix per call
+        if (work == null) {
+            work = new DMatrixRMaj(1, 1);
+        }
+        base.contributions(theta, work);
+        return org.orthogon.moments.MomentAlgebra.columnMeans(work);
     }
 
     @Override

@@ -231,15 +231,12 @@ public final class Autocovariances {
         }
         int sums = rows + width - 1;
         double[] v = new double[sums * cols];
-        for (int r = 0; r < sums; r++) {
-            int first = Math.max(0, r - width + 1);
-            int lastRow = Math.min(rows - 1, r);
-            int at = r * cols;
-            for (int i = first; i <= lastRow; i++) {
-                int from = i * cols;
-                for (int c = 0; c < cols; c++) {
-                    v[at + c] += u[from + c];
-                }
+        int n = rows * cols;
+        // v_r gets u_{r-i} for i = 0..b-1: one contiguous add of the whole series per shift i
+        for (int i = 0; i < width; i++) {
+            int shift = i * cols;
+            for (int j = 0; j < n; j++) {
+                v[shift + j] += u[j];
             }
         }
         CrossProducts.addUpper(v, v, sums, cols, s);

@@ -10,9 +10,10 @@ package org.orthogon.longrun;
  * rows of B held in arrays of their own, all indexed by the same loop counter: that is the shape the
  * JIT compiles to vector instructions (measured about 7 times faster than a general matrix product
  * here; common practice for a rank-k update, no source). The order of the sums is fixed by the
- * shapes alone, so the same inputs always give the same bits.
+ * shapes alone, so the same inputs always give the same bits. Public for the other symmetric
+ * products of the estimators (second-moment matrices, quadratic forms L'ML).
  */
-final class CrossProducts {
+public final class CrossProducts {
     private CrossProducts() {
     }
 
@@ -20,7 +21,7 @@ final class CrossProducts {
      * s_pq += Σ_t a_tp b_tq for q ≥ p, over {@code rows} rows of the row-major {@code rows x cols}
      * arrays a and b; the lower triangle of s is left alone.
      */
-    static void addUpper(double[] a, double[] b, int rows, int cols, double[] s) {
+    public static void addUpper(double[] a, double[] b, int rows, int cols, double[] s) {
         double[][] upper = new double[cols][cols];
         double[] b0 = new double[cols];
         double[] b1 = new double[cols];
@@ -70,7 +71,7 @@ final class CrossProducts {
     }
 
     /** Scales the upper triangle of s by {@code scale} and copies it into the lower one. */
-    static void symmetricFromUpper(double[] s, int cols, double scale) {
+    public static void symmetricFromUpper(double[] s, int cols, double scale) {
         for (int p = 0; p < cols; p++) {
             for (int q = p; q < cols; q++) {
                 double v = s[p * cols + q] * scale;

@@ -150,6 +150,19 @@ public final class LongRunCovariance {
     }
 
     /**
+     * The second-moment matrix (1/T) Σ_t x_t x_t' of the rows of a T x K matrix, as the symmetric
+     * rank-k product of {@link CrossProducts}: the uncentered Γ_0, and the G of the Hansen-Jagannathan
+     * distance (Hansen and Jagannathan 1997). Returns a new symmetric K x K matrix.
+     */
+    public static DMatrixRMaj secondMoments(DMatrixRMaj x) {
+        int k = x.numCols;
+        DMatrixRMaj g = new DMatrixRMaj(k, k);
+        CrossProducts.addUpper(x.data, x.data, x.numRows, k, g.data);
+        CrossProducts.symmetricFromUpper(g.data, k, 1.0 / x.numRows);
+        return g;
+    }
+
+    /**
      * The small-sample factor T/(T - P) applied to S (off by default; P the number of estimated
      * parameters). Returns a new matrix.
      *
