@@ -308,8 +308,14 @@ public final class GmmEstimator {
 
     /** S at θ: the long-run covariance of the contributions f_t(θ). */
     public static LongRunEstimate longRun(MomentModel model, double[] theta, LongRunOptions options) {
-        return LongRunCovariance.estimate(model.contributions(theta), options);
+        // the contributions are written into this thread's work matrix: nothing keeps them past the estimate
+        DMatrixRMaj f = CONTRIBUTIONS.get();
+        model.contributions(theta, f);
+        return LongRunCovariance.estimate(f, options);
     }
+
+    /** Each thread's matrix for the contributions of {@link #longRun}, reused from one S to the next. */
+    private static final ThreadLocal<DMatrixRMaj> CONTRIBUTIONS = ThreadLocal.withInitial(() -> new DMatrixRMaj(1, 1));
 
     /** S(θ)^{-1}; K = P needs no weight (the estimate solves g = 0), so the identity stands in when S is singular. */
     private static DMatrixRMaj efficientWeight(MomentModel model, double[] theta, LongRunOptions options,

@@ -18,6 +18,8 @@ import org.jtransforms.fft.DoubleFFT_1D;
 public final class Autocovariances {
 
     private final double[] u;
+    /** The thread's work arrays when this object lives only inside one estimate, else null. */
+    private final Workspace workspace;
     private final int rows;
     private final int cols;
     private final double divisor;
@@ -26,9 +28,10 @@ public final class Autocovariances {
     private double[] gammas = new double[0];
     private int computed = -1;
 
-    private Autocovariances(double[] u, int rows, int cols, double divisor, boolean centered) {
+    private Autocovariances(double[] u, int rows, int cols, double divisor, boolean centered, Workspace workspace) {
         this.centered = centered;
         this.u = u;
+        this.workspace = workspace;
         this.rows = rows;
         this.cols = cols;
         this.divisor = divisor;
@@ -42,9 +45,24 @@ public final class Autocovariances {
      */
     public static Autocovariances of(DMatrixRMaj moments, boolean centered) {
         LongRunCovariance.validate(moments);
-        int t = moments.numRows;
-        int k = moments.numCols;
-        double[] u = Arrays.copyOf(moments.data, t * k);
+        double[] u = Arrays.copyOf(moments.data, moments.numRows * moments.numCols);
+        return centeredIn(u, moments.numRows, moments.numCols, centered, null);
+    }
+
+    /**
+     * As {@link #of(DMatrixRMaj, boolean)}, with the series and V = WU in the thread's work arrays: for
+     * an object that does not outlive the estimate that made it.
+     */
+    static Autocovariances inWorkspace(DMatrixRMaj moments, boolean centered) {
+        LongRunCovariance.validate(moments);
+        Workspace workspace = Workspace.current();
+        int n = moments.numRows * moments.numCols;
+        double[] u = workspace.series(n);
+        System.arraycopy(moments.data, 0, u, 0, n);
+        return centeredIn(u, moments.numRows, moments.numCols, centered, workspace);
+    }
+
+    private static Autocovariances centeredIn(double[] u, int t, int k, boolean centered, Workspace workspace) {
         if (centered) {
             double[] mean = new double[k];
             for (int r = 0; r < t; r++) {
@@ -61,12 +79,12 @@ public final class Autocovariances {
                 }
             }
         }
-        return new Autocovariances(u, t, k, t, centered);
+        return new Autocovariances(u, t, k, t, centered, workspace);
     }
 
     /** Autocovariances of a row-major series that divide by {@code divisor} instead of its length. */
     static Autocovariances ofSeries(double[] u, int rows, int cols, double divisor, boolean centered) {
-        return new Autocovariances(u, rows, cols, divisor, centered);
+        return new Autocovariances(u, rows, cols, divisor, centered, null);
     }
 
     /** Whether the column means were removed from the moments. */
@@ -230,7 +248,8 @@ public final class Autocovariances {
             return;
         }
         int sums = rows + width - 1;
-        double[] v = new double[sums * cols];
+        double[] v = workspace == null ? new double[sums * cols] : workspace.sums(sums * cols);
+        Arrays.fill(v, 0, sums * cols, 0.0);
         int n = rows * cols;
         // v_r gets u_{r-i} for i = 0..b-1: one contiguous add of the whole series per shift i
         for (int i = 0; i < width; i++) {
@@ -271,7 +290,7 @@ public final class Autocovariances {
 
     private void prepareWeighted() {
         if (weighted == null) {
-            weighted = new double[rows * cols];
+            weighted = workspace == null ? new double[rows * cols] : workspace.weighted(rows * cols);
         }
     }
 
@@ -307,7 +326,7 @@ public final class Autocovariances {
         prepareWeighted();
         int n = fftLength();
         if (spectra == null) {
-            fft = new DoubleFFT_1D(n);
+            fft = workspace == null ? new DoubleFFT_1D(n) : workspace.fft(n);
             kernelSpectrum = new double[n];
             column = new double[n];
             spectra = new double[cols][];

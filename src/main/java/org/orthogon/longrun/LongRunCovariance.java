@@ -36,14 +36,16 @@ public final class LongRunCovariance {
      */
     public static LongRunEstimate estimate(DMatrixRMaj moments, LongRunOptions options) {
         Objects.requireNonNull(options, "options");
-        Autocovariances ac = Autocovariances.of(moments, options.centered());
         List<String> warnings = new ArrayList<>();
         if (!options.prewhiten()) {
+            // nothing of this estimate outlives it, so its series lives in the thread's work arrays
+            Autocovariances ac = Autocovariances.inWorkspace(moments, options.centered());
             double b = bandwidth(ac, options, moments.numRows, false, warnings);
             DMatrixRMaj s = ac.longRun(options.kernel(), b);
             checkPositiveSemidefinite(s, options.kernel(), warnings);
             return new LongRunEstimate(s, options.kernel(), b, options.centered(), false, warnings);
         }
+        Autocovariances ac = Autocovariances.of(moments, options.centered());
         Prewhitening pw = Prewhitening.fit(ac.series(), ac.observations(), ac.columns());
         // The residuals' autocovariances still divide by the original T (DESIGN.md fine print).
         Autocovariances residuals = Autocovariances.ofSeries(pw.residuals, pw.rows, ac.columns(),
