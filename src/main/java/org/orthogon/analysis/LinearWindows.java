@@ -193,6 +193,18 @@ final class LinearWindows {
         }
 
         @Override
+        public double[] discountFactors(double[] theta) {
+            return java.util.Arrays.copyOfRange(base.discountFactors(theta), from, to);
+        }
+
+        /** The window itself when the model takes the distance over itself, else the model's own choice cut. */
+        @Override
+        public java.util.Optional<MomentModel> distanceMoments() {
+            return base.distanceMoments().flatMap(priced -> priced == base ? java.util.Optional.of(this)
+                    : base.rows(from, to).distanceMoments());
+        }
+
+        @Override
         public MomentModel rows(int start, int end) {
             if (start < 0 || end > count || end - start < 1) {
                 throw new IllegalArgumentException("window [" + start + ", " + end + ") is not inside the " + count

@@ -6,7 +6,13 @@ import java.util.Map;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
+import org.orthogon.analysis.CommonWeightComparison;
 import org.orthogon.analysis.ModelComparison;
+import org.orthogon.analysis.VolatilityBound;
+import org.orthogon.gmm.EstimationException;
+import org.orthogon.report.CommonWeightReport;
+import org.orthogon.twopass.EqualR2Test;
+import org.orthogon.twopass.Weighting;
 import org.orthogon.data.InputException;
 import org.orthogon.report.CheckReport;
 import org.orthogon.report.ComparisonDocument;
@@ -65,26 +71,67 @@ final class CompareCommand implements Callable<Integer> {
                 + sample.observations() + ")";
         List<ObjectNode> fits = runs.stream()
                 .map(run -> JsonResults.fit(run.spec(), run.prepared().sample(), run.fit())).toList();
+        CommonWeightReport common = commonWeight(runs, entries);
         ObjectNode results = ComparisonReport.json(result, fits);
+        common.addTo(results);
         if (output.json != null) {
             OutputFiles.writeAtomically(output.json, JsonResults.text(results));
         }
         Path folder = null;
         if (output.requested()) {
             folder = ReportFiles.publish(output.target(folderName), output.overwrite,
-                    ComparisonDocument.build(result, sampleLine), results,
+                    ComparisonDocument.build(result, sampleLine, common), results,
                     new Manifest.Run("compare", commandSpec.commandLine().getParseResult().originalArgs(),
                             Version.current(), started, Map.of()),
                     runs.stream().map(FittedRun::spec).toList(), runs.stream().map(run -> run.prepared().inputs()).toList());
         }
         if (!output.quiet) {
-            commandSpec.commandLine().getOut().print(ComparisonReport.render(result, sampleLine));
+            commandSpec.commandLine().getOut().print(ComparisonReport.render(result, sampleLine, common.render()));
             if (folder != null) {
                 commandSpec.commandLine().getOut().println("\nReport folder: " + CheckReport.display(folder));
             }
             commandSpec.commandLine().getOut().flush();
         }
         return Main.EXIT_OK;
+    }
+
+    /**
+     * The models at the common second-moment weight with the Kan-Robotti tests, the KRS tests of equal
+     * two-pass R² between linear-factor models, and the volatility bound; seeds and draws of the simulated
+     * limits come from the first model file's Hansen-Jagannathan settings.
+     */
+    private static CommonWeightReport commonWeight(List<FittedRun> runs, List<ModelComparison.Entry> entries) {
+        RunSpec first = runs.get(0).spec();
+        long seed = first.estimation().hjSeed();
+        int draws = first.estimation().hjDraws();
+        CommonWeightComparison.Result common = CommonWeightComparison.compare(entries,
+                first.estimation().longRunOptions(), seed, draws);
+        List<String> notes = new ArrayList<>(common.notes());
+        List<EqualR2Test.Result> r2Tests = new ArrayList<>();
+        for (int i = 0; i < runs.size(); i++) {
+            for (int j = i + 1; j < runs.size(); j++) {
+                FittedRun a = runs.get(i);
+                FittedRun b = runs.get(j);
+                if (a.prepared().factorSample().isEmpty() || b.prepared().factorSample().isEmpty()
+                        || !a.spec().model().instrumentColumns().isEmpty()) {
+                    continue;
+                }
+                try {
+                    r2Tests.add(EqualR2Test.compare(a.spec().title(), a.prepared().factorSample().get(),
+                            b.spec().title(), b.prepared().factorSample().get(), Weighting.OLS, true, seed, draws));
+                } catch (IllegalArgumentException | EstimationException e) {
+                    notes.add("no test of equal R2 for " + a.spec().title() + " and " + b.spec().title() + ": "
+                            + e.getMessage());
+                }
+            }
+        }
+        VolatilityBound bound = null;
+        if (!common.models().isEmpty()) {
+            bound = VolatilityBound.of(common.payoffModel(), common.models().get(0).estimates(),
+                    common.models().stream().map(CommonWeightComparison.ModelAtCommonWeight::title).toList(),
+                    common.models().stream().map(CommonWeightComparison.ModelAtCommonWeight::discountFactor).toList());
+        }
+        return new CommonWeightReport(common, r2Tests, bound, notes);
     }
 
     private static void requireSameAssetsAndSample(FittedRun first, FittedRun other) {

@@ -73,18 +73,22 @@ final class FitCommand implements Callable<Integer> {
         if (sensitivity) {
             SensitivityReport.addTo(results, grid, prepared.moments().parameterNames());
         }
+        var premia = run.riskPremia();
+        premia.ifPresent(p -> JsonResults.addRiskPremia(results, p));
         if (output.json != null) {
             OutputFiles.writeAtomically(output.json, JsonResults.text(results));
         }
         Path folder = null;
         if (output.requested()) {
             folder = FitReport.writeFolder(output.target(folderName), output.overwrite, results, spec, prepared, fit,
+                    premia.orElse(null),
                     new Manifest.Run("fit", commandSpec.commandLine().getParseResult().originalArgs(),
                             Version.current(), started, Map.of()));
         }
         if (!output.quiet) {
             PrintWriter out = commandSpec.commandLine().getOut();
             out.print(ConsoleReport.render(spec, prepared.sample(), fit, prepared.notes(), restrictions));
+            premia.ifPresent(p -> out.print(ConsoleReport.renderRiskPremia(p)));
             if (sensitivity) {
                 out.print("\n" + SensitivityReport.render(grid, prepared.moments().parameterNames()));
             }

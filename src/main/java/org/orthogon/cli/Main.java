@@ -27,6 +27,7 @@ public final class Main {
         Map<String, Class<?>> verbs = new LinkedHashMap<>();
         verbs.put("fit", FitCommand.class);
         verbs.put("compare", CompareCommand.class);
+        verbs.put("two-pass", TwoPassCommand.class);
         verbs.put("stability", StabilityCommand.class);
         verbs.put("check", CheckCommand.class);
         verbs.put("simulate", SimulateCommand.class);

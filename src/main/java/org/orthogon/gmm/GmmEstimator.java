@@ -294,8 +294,7 @@ public final class GmmEstimator {
         HjDistance hj = null;
         if (detail == Detail.FULL) {
             try {
-                hj = HansenJagannathan.distance(model, theta, longRunOptions, bounds, options.hjSeed(),
-                        options.hjDraws());
+                hj = distance(model, theta, longRunOptions, bounds, options.hjSeed(), options.hjDraws());
             } catch (EstimationException e) {
                 warnings.add("the Hansen-Jagannathan distance is not reported: " + e.getMessage());
             }
@@ -304,6 +303,34 @@ public final class GmmEstimator {
                 weightUpdates, converged && last.converged(), atBounds);
         return new GmmFit(options.method(), parameters, covariance, t, k, objective, overidentification, errors, joint,
                 finalS, solverIterations, warnings, weight, diagnostics, hj, options.confidenceLevel());
+    }
+
+    /**
+     * The Hansen-Jagannathan distance over the model's {@link MomentModel#distanceMoments()}, started at
+     * the estimate's values of their parameters and bounded like them; null when the moments price no
+     * payoff with an SDF.
+     */
+    static HjDistance distance(MomentModel model, double[] theta, LongRunOptions longRun, ParameterBounds bounds,
+            long seed, int draws) {
+        java.util.Optional<MomentModel> priced = model.distanceMoments();
+        if (priced.isEmpty()) {
+            return null;
+        }
+        MomentModel moments = priced.get();
+        List<String> names = model.parameterNames();
+        int q = moments.parameterCount();
+        double[] start = new double[q];
+        double[] lower = new double[q];
+        double[] upper = new double[q];
+        double[] allLower = bounds.lower();
+        double[] allUpper = bounds.upper();
+        for (int j = 0; j < q; j++) {
+            int at = names.indexOf(moments.parameterNames().get(j));
+            start[j] = theta[at];
+            lower[j] = allLower[at];
+            upper[j] = allUpper[at];
+        }
+        return HansenJagannathan.distance(moments, start, longRun, new ParameterBounds(lower, upper), seed, draws);
     }
 
     /** S at θ: the long-run covariance of the contributions f_t(θ). */

@@ -54,6 +54,17 @@ final class LinearModelView extends ForwardingMomentModel {
     }
 
     @Override
+    public double[] discountFactors(double[] theta) {
+        return base.discountFactors(theta);
+    }
+
+    /** The distance is taken through this view when the model takes it over itself. */
+    @Override
+    public java.util.Optional<MomentModel> distanceMoments() {
+        return base.distanceMoments().map(priced -> priced == base ? this : priced);
+    }
+
+    @Override
     public DMatrixRMaj payoffs() {
         if (payoffs == null) {
             payoffs = base.payoffs();

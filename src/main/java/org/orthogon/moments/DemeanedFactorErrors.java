@@ -20,8 +20,8 @@ import java.util.List;
  *
  * <p>Parameters are b_&lt;factor&gt; then mu_&lt;factor&gt;. The asset moments come first, then one
  * moment per factor named mean_&lt;factor&gt;. Those mean moments price no payoff; {@link #payoffs}
- * reports F_k for them (e = 1·F_k - μ_k), so a Hansen-Jagannathan distance should be taken over the
- * first {@link #pricingMoments()} moments only.
+ * reports F_k for them (e = 1·F_k - μ_k), so the Hansen-Jagannathan distance is taken over the first
+ * {@link #pricingMoments()} moments only, with μ = f̄ ({@link #distanceErrors()}).
  */
 public final class DemeanedFactorErrors extends NamedErrors {
     private final double[][] excessReturns; // [t][i]
@@ -87,6 +87,17 @@ public final class DemeanedFactorErrors extends NamedErrors {
             }
             out[t] = sdf;
         }
+    }
+
+    /** The N asset errors at μ = f̄, the moment set of this form's Hansen-Jagannathan distance. */
+    @Override
+    public java.util.Optional<ObservationErrors> distanceErrors() {
+        return java.util.Optional.of(new DemeanedPricingErrors(excessReturns, factors,
+                assetNames.subList(0, assets), factorNames()));
+    }
+
+    private List<String> factorNames() {
+        return parameterNames.subList(0, factorCount).stream().map(name -> name.substring(2)).toList();
     }
 
     @Override

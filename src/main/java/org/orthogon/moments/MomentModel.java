@@ -57,6 +57,23 @@ public interface MomentModel {
         throw new UnsupportedOperationException(getClass().getSimpleName() + " has no stochastic discount factor");
     }
 
+    /**
+     * The stochastic discount factor m_t(θ) in each period (T values), for volatility bounds; moments that
+     * come from no SDF have none and say so.
+     */
+    default double[] discountFactors(double[] theta) {
+        throw new UnsupportedOperationException(getClass().getSimpleName() + " has no stochastic discount factor");
+    }
+
+    /**
+     * The moments over which the Hansen-Jagannathan distance is taken, whose parameters are a subset of
+     * these by name: these moments by default; the N priced assets alone for the demeaned linear SDF
+     * (μ = f̄); empty for moments that price no payoff with an SDF.
+     */
+    default java.util.Optional<MomentModel> distanceMoments() {
+        return java.util.Optional.of(this);
+    }
+
     /** The 1 x K sample mean g_T(θ), as a K x 1 column. */
     default DMatrixRMaj meanMoments(double[] theta) {
         return MomentAlgebra.columnMeans(contributions(theta));

@@ -47,4 +47,14 @@ public interface ObservationErrors {
 
     /** True when e_t(θ) is affine in θ. */
     boolean isLinear();
+
+    /**
+     * The errors over which the Hansen-Jagannathan distance is taken: these errors (the default), a
+     * family's own choice (the demeaned linear SDF prices its N assets with μ = f̄, leaving out the
+     * factor-mean moments), or none for moments that price no payoff with an SDF. Their parameters are
+     * a subset of {@link #parameterNames()}, by name.
+     */
+    default java.util.Optional<ObservationErrors> distanceErrors() {
+        return java.util.Optional.of(this);
+    }
 }

@@ -163,10 +163,22 @@ public final class ScaledMoments implements MomentModel {
     }
 
     @Override
-    public double meanDiscountFactor(double[] theta) {
+    public double[] discountFactors(double[] theta) {
         checkLength(theta);
         double[] sdf = new double[observations()];
         errors.discountFactor(theta, sdf);
+        return sdf;
+    }
+
+    @Override
+    public java.util.Optional<MomentModel> distanceMoments() {
+        return errors.distanceErrors().map(priced -> priced == errors ? this : instruments == null
+                ? unscaled(priced) : scaled(priced, instruments, instrumentNames));
+    }
+
+    @Override
+    public double meanDiscountFactor(double[] theta) {
+        double[] sdf = discountFactors(theta);
         double sum = 0.0;
         for (double value : sdf) {
             sum += value;

@@ -100,6 +100,19 @@ public sealed interface Chart {
         }
     }
 
+    /**
+     * A curve (a frontier or bound, drawn as a line) with labelled points placed against it, e.g. the
+     * Hansen-Jagannathan volatility bound with the models' SDFs at their mean and volatility.
+     */
+    record Frontier(String id, String title, String xLabel, String yLabel, List<Point> curve, List<Point> points)
+            implements Chart {
+        public Frontier {
+            checkId(id);
+            curve = List.copyOf(curve);
+            points = List.copyOf(points);
+        }
+    }
+
     private static void checkId(String id) {
         if (!id.matches("[a-z0-9]+(-[a-z0-9]+)*")) {
             throw new IllegalArgumentException("chart id \"" + id + "\" must be lower-case words joined by hyphens");

@@ -126,6 +126,8 @@ public final class ChartRenderer {
             built = errorBars(bars);
         } else if (chart instanceof Chart.Bands bands) {
             built = bands(bands);
+        } else if (chart instanceof Chart.Frontier frontier) {
+            built = frontier(frontier);
         } else {
             built = sequence((Chart.Sequence) chart);
         }
@@ -230,6 +232,43 @@ public final class ChartRenderer {
         double w = Math.min(a[2], b[2]) - Math.max(a[0], b[0]);
         double h = Math.min(a[3], b[3]) - Math.max(a[1], b[1]);
         return w > 0 && h > 0 ? w * h : 0;
+    }
+
+    private static JFreeChart frontier(Chart.Frontier spec) {
+        XYSeriesCollection data = new XYSeriesCollection();
+        XYSeries curve = new XYSeries("bound", false);
+        spec.curve().stream().filter(p -> Double.isFinite(p.x()) && Double.isFinite(p.y()))
+                .forEach(p -> curve.add(p.x(), p.y()));
+        XYSeries points = new XYSeries("points", false);
+        List<Chart.Point> placed = spec.points().stream()
+                .filter(p -> Double.isFinite(p.x()) && Double.isFinite(p.y())).toList();
+        placed.forEach(p -> points.add(p.x(), p.y()));
+        data.addSeries(curve);
+        data.addSeries(points);
+        XYLineAndShapeRenderer renderer = new XYLineAndShapeRenderer();
+        renderer.setSeriesLinesVisible(0, true);
+        renderer.setSeriesShapesVisible(0, false);
+        renderer.setSeriesPaint(0, REFERENCE);
+        renderer.setSeriesStroke(0, new BasicStroke(1.8f));
+        renderer.setSeriesLinesVisible(1, false);
+        renderer.setSeriesShapesVisible(1, true);
+        renderer.setSeriesPaint(1, ACCENT);
+        renderer.setSeriesShape(1, new Ellipse2D.Double(-4, -4, 8, 8));
+        XYPlot plot = new XYPlot(data, axis(spec.xLabel()), axis(spec.yLabel()), renderer);
+        ((NumberAxis) plot.getDomainAxis()).setAutoRangeIncludesZero(false);
+        ((NumberAxis) plot.getRangeAxis()).setAutoRangeIncludesZero(true);
+        double low = Double.POSITIVE_INFINITY;
+        double high = Double.NEGATIVE_INFINITY;
+        for (Chart.Point p : spec.curve()) {
+            low = Math.min(low, p.y());
+            high = Math.max(high, p.y());
+        }
+        for (Chart.Point p : placed) {
+            high = Math.max(high, p.y());
+        }
+        label(plot, placed, Double.isFinite(high - low) && high > low ? high - low : 1.0);
+        style(plot);
+        return new JFreeChart(null, LABEL, plot, false);
     }
 
     private static JFreeChart errorBars(Chart.ErrorBars spec) {

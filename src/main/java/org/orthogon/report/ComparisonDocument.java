@@ -18,6 +18,11 @@ public final class ComparisonDocument {
     }
 
     public static Report build(ModelComparison.Result result, String sampleLine) {
+        return build(result, sampleLine, null);
+    }
+
+    /** As {@link #build(ModelComparison.Result, String)}, with the comparison at the common weight when given. */
+    public static Report build(ModelComparison.Result result, String sampleLine, CommonWeightReport common) {
         List<ModelSummary> models = result.models();
         Report.Builder report = Report.builder("Model comparison")
                 .subtitle("The same test assets, " + sampleLine);
@@ -40,6 +45,9 @@ public final class ComparisonDocument {
             }
             report.chart(new Chart.Scatter("realised-vs-implied-" + (m + 1), "(" + (m + 1) + ") "
                     + models.get(m).title(), "model-implied mean", "realised mean", points));
+        }
+        if (common != null) {
+            common.addTo(report);
         }
         List<String> warnings = new ArrayList<>();
         for (int m = 0; m < models.size(); m++) {

@@ -19,6 +19,11 @@ public final class ComparisonReport {
 
     /** Parameters (standard errors in parentheses below), tests and cross-sectional fit, one column per model. */
     public static String render(ModelComparison.Result result, String sampleLine) {
+        return render(result, sampleLine, "");
+    }
+
+    /** As {@link #render(ModelComparison.Result, String)}, with {@code more} text before the warnings and caution. */
+    public static String render(ModelComparison.Result result, String sampleLine, String more) {
         List<ModelSummary> models = result.models();
         List<String> header = new ArrayList<>(List.of(""));
         for (int m = 0; m < models.size(); m++) {
@@ -64,6 +69,7 @@ public final class ComparisonReport {
             }
             out.append(nested.render("  "));
         }
+        out.append(more);
         for (int m = 0; m < models.size(); m++) {
             for (String warning : models.get(m).fit().warnings()) {
                 out.append("WARNING (").append(m + 1).append("): ").append(warning).append('\n');

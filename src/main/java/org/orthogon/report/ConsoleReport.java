@@ -82,6 +82,17 @@ public final class ConsoleReport {
         return out.toString();
     }
 
+    /** The risk premia of the demeaned linear SDF, λ = Σ_F b, ending in a newline. */
+    public static String renderRiskPremia(FittedRun.RiskPremiumEstimates premia) {
+        TextTable table = new TextTable(List.of("factor", "risk premium", "std. error", "t-stat"));
+        for (int k = 0; k < premia.factors().size(); k++) {
+            table.row(List.of(premia.factors().get(k), number(premia.estimates()[k]), number(premia.stdErrors()[k]),
+                    fixed(premia.estimates()[k] / premia.stdErrors()[k], 2)));
+        }
+        return "\nRisk premia lambda = Cov(F, F') b (delta method, covariance of the factors estimated jointly)\n"
+                + table.render("  ");
+    }
+
     /** The Wald tests of the model file's (and the command line's) linear restrictions. */
     static String renderRestrictions(List<FittedRun.RestrictionTest> tests) {
         if (tests.isEmpty()) {

@@ -25,6 +25,12 @@ public final class FitReport {
 
     /** The document of one fit. */
     public static Report build(RunSpec spec, PreparedRun prepared, GmmFit fit) {
+        return build(spec, prepared, fit, null);
+    }
+
+    /** The document of one fit, with the risk premia of a demeaned linear SDF when given. */
+    public static Report build(RunSpec spec, PreparedRun prepared, GmmFit fit,
+            org.orthogon.spec.FittedRun.RiskPremiumEstimates premia) {
         var sample = prepared.sample();
         Report.Builder report = Report.builder(spec.title())
                 .subtitle(String.format(Locale.ROOT, "%s SDF, %s GMM; %s sample %s to %s, T = %d",
@@ -34,6 +40,9 @@ public final class FitReport {
                         prepared.assets().size(), fit.momentCount(), fit.parameters().size()))
                 .subtitle("Long-run covariance: " + ConsoleReport.describeLongRun(fit));
         report.section("Parameters").table(parameters(fit));
+        if (premia != null) {
+            report.table(riskPremia(premia));
+        }
         report.section("Overidentifying restrictions").table(overidentification(fit));
         MeanPayoffs means = realisedAndImplied(spec, prepared, fit);
         report.section("Pricing errors").table(pricingErrors(fit, means)).chart(errorChart(fit));
@@ -55,8 +64,9 @@ public final class FitReport {
      * @return the folder written
      */
     public static Path writeFolder(Path target, boolean overwrite, ObjectNode results, RunSpec spec,
-            PreparedRun prepared, GmmFit fit, Manifest.Run run) {
-        return ReportFiles.publish(target, overwrite, build(spec, prepared, fit), results, run, List.of(spec),
+            PreparedRun prepared, GmmFit fit, org.orthogon.spec.FittedRun.RiskPremiumEstimates premia,
+            Manifest.Run run) {
+        return ReportFiles.publish(target, overwrite, build(spec, prepared, fit, premia), results, run, List.of(spec),
                 List.of(prepared.inputs()));
     }
 
@@ -78,6 +88,18 @@ public final class FitReport {
                         ConsoleReport.fixed(over.statistic(), 3), over.df(), ConsoleReport.fixed(over.pValue(), 4)))
                 .note(String.format(Locale.ROOT, "Method: %s GMM, T = %d.", fit.method().id(), fit.observations()))
                 .build();
+    }
+
+    /** λ = Σ_F b per factor with its delta-method standard error. */
+    static Table riskPremia(org.orthogon.spec.FittedRun.RiskPremiumEstimates premia) {
+        Table.Builder table = Table.builder("risk-premia", "Factor risk premia implied by the SDF", "factor",
+                "risk premium", "std. error", "t-stat").errorUnder("risk premium", "std. error");
+        for (int k = 0; k < premia.factors().size(); k++) {
+            table.row(Cell.text(premia.factors().get(k)), Cell.number(premia.estimates()[k]),
+                    Cell.number(premia.stdErrors()[k]), Cell.fixed(premia.estimates()[k] / premia.stdErrors()[k], 2));
+        }
+        return table.note("lambda = Cov(F, F') b (Cochrane 2005, section 6.3); standard errors by the delta method on b "
+                + "and the factor covariance jointly, b's influence taken at the fit's own weight.").build();
     }
 
     /** The overidentification test and the joint test of the pricing errors. */

@@ -114,6 +114,17 @@ public final class JsonResults {
         }
     }
 
+    /** Adds the risk premia λ = Σ_F b of the demeaned linear SDF as "risk_premia": [{"factor", "estimate", "std_error"}]. */
+    public static void addRiskPremia(ObjectNode results, FittedRun.RiskPremiumEstimates premia) {
+        ArrayNode array = results.putArray("risk_premia");
+        for (int k = 0; k < premia.factors().size(); k++) {
+            ObjectNode node = array.addObject();
+            node.put("factor", premia.factors().get(k));
+            number(node, "estimate", premia.estimates()[k]);
+            number(node, "std_error", premia.stdErrors()[k]);
+        }
+    }
+
     /** Pretty-printed JSON text with a final newline. */
     public static String text(ObjectNode node) {
         return MAPPER.writeValueAsString(node) + "\n";

@@ -1,6 +1,8 @@
 package org.orthogon.spec;
 
 import org.orthogon.gmm.ChiSquareTest;
+import org.orthogon.gmm.DeltaMethod;
+import org.orthogon.gmm.RiskPremia;
 import org.orthogon.gmm.GmmEstimator;
 import org.orthogon.gmm.GmmFit;
 import org.orthogon.gmm.GmmOptions;
@@ -39,6 +41,44 @@ public record FittedRun(RunSpec spec, PreparedRun prepared, GmmFit fit) {
             }
         }
         return tests;
+    }
+
+    /**
+     * The factor risk premia λ = Σ_F b of the linear SDF in demeaned factors, with standard errors by the
+     * delta method on (b, Σ_F) jointly ({@link RiskPremia#withEstimatedCovariance}: the influence of b uses
+     * the fit's own weight, S^{-1} at the estimate for the efficient methods); empty for other families and
+     * forms, and when instruments scale the moments. Named by factor.
+     */
+    public java.util.Optional<RiskPremiumEstimates> riskPremia() {
+        if (spec.model().family() != RunSpec.Family.LINEAR_FACTOR || !spec.model().form().equals("demeaned")
+                || !spec.model().instrumentColumns().isEmpty() || prepared.factorSample().isEmpty()) {
+            return java.util.Optional.empty();
+        }
+        var sample = prepared.factorSample().get();
+        List<String> coefficients = sample.factors().stream().map(f -> "b_" + f).toList();
+        DeltaMethod.Transformed premia = RiskPremia.withEstimatedCovariance(sample.factorValues(), prepared.moments(),
+                fit, coefficients);
+        return java.util.Optional.of(new RiskPremiumEstimates(sample.factors(), premia.values(),
+                premia.standardErrors()));
+    }
+
+    /** Risk premia per factor with their standard errors. */
+    public record RiskPremiumEstimates(List<String> factors, double[] estimates, double[] stdErrors) {
+        public RiskPremiumEstimates {
+            factors = List.copyOf(factors);
+            estimates = estimates.clone();
+            stdErrors = stdErrors.clone();
+        }
+
+        @Override
+        public double[] estimates() {
+            return estimates.clone();
+        }
+
+        @Override
+        public double[] stdErrors() {
+            return stdErrors.clone();
+        }
     }
 
     /** Reads the data of {@code spec}, builds its moments and estimates them with its [estimation] choices. */

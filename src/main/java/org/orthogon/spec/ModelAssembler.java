@@ -32,6 +32,7 @@ import org.orthogon.moments.ScaledFactors;
 import org.orthogon.moments.ObservationErrors;
 import org.orthogon.moments.PowerUtilityErrors;
 import org.orthogon.moments.ScaledMoments;
+import org.orthogon.twopass.FactorSample;
 
 /**
  * Turns a {@link RunSpec} into moment conditions on an aligned sample: reads the files, checks units
@@ -48,6 +49,8 @@ public final class ModelAssembler {
     private final List<String> notes = new ArrayList<>();
     /** Every data file read, for `check` and the run's provenance. */
     private final List<InputSummary> inputs = new ArrayList<>();
+    /** Linear-factor models: excess returns and factors on the moment rows, for the two-pass regressions. */
+    private FactorSample factorSample;
 
     private ModelAssembler(RunSpec spec) {
         this.spec = spec;
@@ -178,6 +181,13 @@ public final class ModelAssembler {
             String rateName = spec.data().riskfreeColumn().orElse("riskfree");
             errors = new GrossFactorErrors(risky, rate, factorRows, assets.columnNames().subList(0, n), rateName,
                     factorNames);
+            double[][] excess = new double[rows.length][n];
+            for (int t = 0; t < rows.length; t++) {
+                for (int i = 0; i < n; i++) {
+                    excess[t][i] = risky[t][i] - rate[t];
+                }
+            }
+            factorSample = new FactorSample(assets.columnNames().subList(0, n), factorNames, excess, factorRows);
             defaults = new double[errors.parameterNames().size()];
             defaults[0] = 1.0;
         } else if (form.equals("demeaned")) {
@@ -190,6 +200,9 @@ public final class ModelAssembler {
         } else {
             errors = new LinearFactorErrors(aligned.assetRows(), factorRows, assets.columnNames(), factorNames);
             defaults = new double[errors.parameterNames().size()];
+        }
+        if (factorSample == null) {
+            factorSample = new FactorSample(assets.columnNames(), factorNames, aligned.assetRows(), factorRows);
         }
         Map<String, Double> defaultMap = new LinkedHashMap<>();
         for (int i = 0; i < defaults.length; i++) {
@@ -612,7 +625,7 @@ public final class ModelAssembler {
                 observations, dates.get(0).frequency().id());
         List<String> labels = dates.subList(aligned.first(), aligned.last() + 1).stream().map(Period::label).toList();
         return new PreparedRun(moments, start, sample, notes, inputs,
-                errors.assetNames().subList(0, errors.pricedAssets()), labels);
+                errors.assetNames().subList(0, errors.pricedAssets()), labels, Optional.ofNullable(factorSample));
     }
 
     /**

@@ -1,7 +1,9 @@
 package org.orthogon.spec;
 
 import java.util.List;
+import java.util.Optional;
 import org.orthogon.moments.MomentModel;
+import org.orthogon.twopass.FactorSample;
 
 /**
  * A model file turned into estimable moment conditions on one aligned sample.
@@ -14,9 +16,11 @@ import org.orthogon.moments.MomentModel;
  * @param inputs      every data file read
  * @param assets      the N test assets (before any scaling by instruments)
  * @param dates       the label of every observation of the moments, in order (T of them)
+ * @param factorSample linear-factor models: the test assets' excess returns and the factors on the same
+ *                    rows, for the two-pass regressions and the risk premia; empty for other families
  */
 public record PreparedRun(MomentModel moments, double[] startValues, SampleInfo sample, List<String> notes,
-        List<InputSummary> inputs, List<String> assets, List<String> dates) {
+        List<InputSummary> inputs, List<String> assets, List<String> dates, Optional<FactorSample> factorSample) {
     public PreparedRun {
         startValues = startValues.clone();
         notes = List.copyOf(notes);

@@ -47,8 +47,9 @@ class CompareCommandTest {
             assertThat(out.resolve(file)).as(file).exists();
         }
         org.jsoup.nodes.Document html = org.jsoup.Jsoup.parse(out.resolve("report.html").toFile());
-        assertThat(html.select("table")).hasSize(3);
-        assertThat(html.select("svg")).hasSize(2);
+        // Own-weight parameters, tests and nested tests; common-weight models, HJ-distance and R2 tests.
+        assertThat(html.select("table")).hasSize(6);
+        assertThat(html.select("svg")).hasSize(3);
         JsonNode manifest = JsonMapper.builder().build().readTree(out.resolve("manifest.json").toFile());
         assertThat(manifest.get("models")).hasSize(2);
     }

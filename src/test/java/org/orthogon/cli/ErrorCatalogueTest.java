@@ -38,7 +38,7 @@ class ErrorCatalogueTest {
 
     /** One catalogue entry. */
     record Case(String id, String model, Setup setup, List<String> extraArgs, int exit, String file, int line,
-            List<String> mentions) {
+            List<String> mentions, String verb) {
     }
 
     @FunctionalInterface
@@ -54,15 +54,20 @@ class ErrorCatalogueTest {
     }
 
     private static Case refused(String id, String model, Setup setup, String file, int line, String... mentions) {
-        return new Case(id, model, setup, List.of(), Main.EXIT_INPUT, file, line, List.of(mentions));
+        return new Case(id, model, setup, List.of(), Main.EXIT_INPUT, file, line, List.of(mentions), "fit");
     }
 
     private static Case accepted(String id, String model, Setup setup) {
-        return new Case(id, model, setup, List.of(), Main.EXIT_OK, null, 0, List.of());
+        return new Case(id, model, setup, List.of(), Main.EXIT_OK, null, 0, List.of(), "fit");
     }
 
     private static Case withArgs(Case c, String... args) {
-        return new Case(c.id(), c.model(), c.setup(), List.of(args), c.exit(), c.file(), c.line(), c.mentions());
+        return new Case(c.id(), c.model(), c.setup(), List.of(args), c.exit(), c.file(), c.line(), c.mentions(), c.verb());
+    }
+
+    /** The same case run by another verb than fit. */
+    private static Case onVerb(String verb, Case c) {
+        return new Case(c.id(), c.model(), c.setup(), c.extraArgs(), c.exit(), c.file(), c.line(), c.mentions(), verb);
     }
 
     private static Setup editData(String file, UnaryOperator<String> change) {
@@ -241,6 +246,15 @@ class ErrorCatalogueTest {
                 "cons_growth^(-gamma"), EXPRESSION, 14, "sdf formula"));
         cases.add(refused("restriction-unknown-parameter", THREE, replaceInModel(THREE, "lags = 4",
                 "lags = 4\nrestrictions = [\"b_SIZ = 0\"]"), THREE, 21, "b_SIZ"));
+        // two-pass
+        cases.add(onVerb("two-pass", refused("two-pass-not-linear-factor", POWER, cli -> { }, POWER, 13,
+                "power-utility", "linear-factor")));
+        cases.add(onVerb("two-pass", refused("two-pass-scaled-moments", THREE, replaceInModel(THREE, "[estimation]",
+                "instrument_columns = [\"const\"]\n\n[estimation]"), THREE, 17, "instrument_columns")));
+        cases.add(onVerb("two-pass", refused("two-pass-too-few-assets", THREE, replaceInModel(THREE, "[model]",
+                "assets = [\"S1T1\", \"S1T2\", \"S1T3\", \"S1T4\"]\n\n[model]"), THREE, 17, "K + 2")));
+        cases.add(onVerb("two-pass", refused("two-pass-short-sample", THREE, replaceInModel(THREE, "[model]",
+                "start = \"2023-11\"\n\n[model]"), THREE, 13, "T > N + K")));
         // Command line
         cases.add(withArgs(refused("unknown-method-option", POWER, cli -> { }, "three-step", 0, "one-step"), "--method",
                 "three-step"));
@@ -262,7 +276,7 @@ class ErrorCatalogueTest {
         CliHarness cli = new CliHarness(caseRoot);
         c.setup().apply(cli);
         Path json = caseRoot.resolve("results.json");
-        List<String> args = new ArrayList<>(List.of("fit", cli.models.resolve(c.model()).normalize().toString(), "--json",
+        List<String> args = new ArrayList<>(List.of(c.verb(), cli.models.resolve(c.model()).normalize().toString(), "--json",
                 json.toString()));
         c.extraArgs().forEach(arg -> args.add(arg.replace("{root}", caseRoot.toString())));
         CliHarness.Result result = cli.run(args.toArray(String[]::new));
