@@ -1,7 +1,9 @@
 package org.orthogon.data;
 
 import org.ejml.data.DMatrixRMaj;
+import org.ejml.dense.row.CommonOps_DDRM;
 import org.ejml.dense.row.factory.DecompositionFactory_DDRM;
+import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
 import org.ejml.interfaces.decomposition.SingularValueDecomposition_F64;
 
 /**
@@ -50,7 +52,7 @@ public final class ColumnChecks {
         double[][] columns = table.columns();
         int count = columns.length;
         int rows = table.rows();
-        if (count < 2 || !dependent(columns, rows, count - 1)) {
+        if (count < 2 || rows > count && clearlyIndependent(columns, rows) || !dependent(columns, rows, count - 1)) {
             return;
         }
         int clean = 0; // columns 0..clean are independent (one column always is, if it varies)
@@ -67,6 +69,37 @@ public final class ColumnChecks {
                 .problem("the " + role + " column \"" + table.columnNames().get(bad) + "\" is (up to rounding) a "
                         + "linear combination of the columns before it, so the long-run covariance S would be "
                         + "singular", "drop this column or one of the columns it combines");
+    }
+
+    /**
+     * A quick pass that settles the usual case: the eigenvalues of X'X are the squared singular values of
+     * X, so sqrt(λ_min/λ_max) is the ratio the check compares. They are only accurate to about K times
+     * the rounding unit of λ_max, which cannot resolve the 1e-10 threshold itself, but a ratio above 1e-6
+     * (λ_min/λ_max above 1e-12, a hundred times that error) certainly clears it. Anything less goes to the
+     * singular value decomposition.
+     */
+    private static boolean clearlyIndependent(double[][] columns, int rows) {
+        int count = columns.length;
+        DMatrixRMaj x = new DMatrixRMaj(rows, count);
+        for (int t = 0; t < rows; t++) {
+            for (int c = 0; c < count; c++) {
+                x.unsafe_set(t, c, columns[c][t]);
+            }
+        }
+        DMatrixRMaj gram = new DMatrixRMaj(count, count);
+        CommonOps_DDRM.multInner(x, gram);
+        EigenDecomposition_F64<DMatrixRMaj> eig = DecompositionFactory_DDRM.eig(count, false, true);
+        if (!eig.decompose(gram)) {
+            return false;
+        }
+        double max = 0.0;
+        double min = Double.POSITIVE_INFINITY;
+        for (int i = 0; i < count; i++) {
+            double value = eig.getEigenvalue(i).real;
+            max = Math.max(max, value);
+            min = Math.min(min, value);
+        }
+        return max > 0.0 && min / max > 1e-12;
     }
 
     /** Whether columns 0..last are linearly dependent (or outnumber the rows). */
