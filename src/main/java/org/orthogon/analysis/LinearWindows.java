@@ -24,6 +24,7 @@ final class LinearWindows {
     private final int p;
     private final double[] intercepts; // T x K, f_t(0)
     private final double[] slopes; // T x K x P, J_t row-major
+    private final double[] slopesByParameter; // T x P x K: row t holds J_t' row-major, for contiguous adds
     private final double[] interceptSums; // (T+1) x K
     private final double[] slopeSums; // (T+1) x K x P
     private DMatrixRMaj payoffs;
@@ -35,6 +36,14 @@ final class LinearWindows {
         this.p = base.parameterCount();
         this.intercepts = base.contributions(new double[p]).data;
         this.slopes = base.rowJacobians(new double[p]).data;
+        this.slopesByParameter = new double[slopes.length];
+        for (int t = 0; t < rows; t++) {
+            for (int i = 0; i < k; i++) {
+                for (int a = 0; a < p; a++) {
+                    slopesByParameter[(t * p + a) * k + i] = slopes[(t * k + i) * p + a];
+                }
+            }
+        }
         this.interceptSums = runningSums(intercepts, rows, k);
         this.slopeSums = runningSums(slopes, rows, k * p);
     }
@@ -73,6 +82,12 @@ final class LinearWindows {
         return sums;
     }
 
+    private static void addScaled(double[] target, int at, double[] source, int from, double scale, int length) {
+        for (int i = 0; i < length; i++) {
+            target[at + i] += scale * source[from + i];
+        }
+    }
+
     private synchronized DMatrixRMaj fullPayoffs() {
         if (payoffs == null) {
             payoffs = base.payoffs();
@@ -85,6 +100,7 @@ final class LinearWindows {
         private final int from;
         private final int to;
         private final int count;
+        private DMatrixRMaj jacobian;
 
         Window(int from, int to) {
             this.from = from;
@@ -129,17 +145,13 @@ final class LinearWindows {
             checkLength(theta);
             out.reshape(count, k);
             double[] f = out.data;
+            System.arraycopy(intercepts, from * k, f, 0, count * k);
+            // f_t = f_t(0) + Σ_a θ_a J_t[:, a]: each term a contiguous add over the K moments of row t
             for (int t = 0; t < count; t++) {
-                int row = (from + t) * k;
-                int slope = (from + t) * k * p;
                 int at = t * k;
-                for (int i = 0; i < k; i++) {
-                    double value = intercepts[row + i];
-                    int j = slope + i * p;
-                    for (int a = 0; a < p; a++) {
-                        value += slopes[j + a] * theta[a];
-                    }
-                    f[at + i] = value;
+                int slope = (from + t) * p * k;
+                for (int a = 0; a < p; a++) {
+                    addScaled(f, at, slopesByParameter, slope + a * k, theta[a], k);
                 }
             }
         }
@@ -148,7 +160,7 @@ final class LinearWindows {
         public DMatrixRMaj meanMoments(double[] theta) {
             checkLength(theta);
             DMatrixRMaj g = new DMatrixRMaj(k, 1);
-            DMatrixRMaj d = meanJacobian(theta);
+            DMatrixRMaj d = jacobian();
             for (int i = 0; i < k; i++) {
                 double value = (interceptSums[to * k + i] - interceptSums[from * k + i]) / count;
                 for (int a = 0; a < p; a++) {
@@ -162,12 +174,20 @@ final class LinearWindows {
         @Override
         public DMatrixRMaj meanJacobian(double[] theta) {
             checkLength(theta);
-            int width = k * p;
-            DMatrixRMaj d = new DMatrixRMaj(k, p);
-            for (int c = 0; c < width; c++) {
-                d.data[c] = (slopeSums[to * width + c] - slopeSums[from * width + c]) / count;
+            return jacobian().copy();
+        }
+
+        /** D of the window, formed once (a window is used by one estimation, on one thread). */
+        private DMatrixRMaj jacobian() {
+            if (jacobian == null) {
+                int width = k * p;
+                DMatrixRMaj d = new DMatrixRMaj(k, p);
+                for (int c = 0; c < width; c++) {
+                    d.data[c] = (slopeSums[to * width + c] - slopeSums[from * width + c]) / count;
+                }
+                jacobian = d;
             }
-            return d;
+            return jacobian;
         }
 
         @Override

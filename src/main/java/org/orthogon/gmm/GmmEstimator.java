@@ -239,9 +239,8 @@ public final class GmmEstimator {
             covariance = exactlyIdentifiedCovariance(jacobian, s, t);
             errorCovariance = new DMatrixRMaj(k, k);
         } else {
-            DMatrixRMaj dwd = Matrices.quadraticForm(jacobian, weight);
             if (complete) {
-                rcondDwd = Matrices.scaledReciprocalCondition(dwd);
+                rcondDwd = Matrices.scaledReciprocalCondition(Matrices.quadraticForm(jacobian, weight));
             }
             covariance = options.method().isEfficient() ? Inference.efficientCovariance(jacobian, s, t)
                     : Inference.sandwichCovariance(jacobian, weight, s, t);

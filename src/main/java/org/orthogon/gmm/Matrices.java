@@ -135,7 +135,19 @@ final class Matrices {
                 throw new SingularMatrixException(what + " (not positive definite)", rcond);
             }
         }
-        return symmetrize(scaled(inverse, scale));
+        scaleInPlace(inverse, scale);
+        return symmetrize(inverse);
+    }
+
+    /** diag(scale) A diag(scale), in place. */
+    private static void scaleInPlace(DMatrixRMaj a, double[] scale) {
+        int n = a.numCols;
+        double[] data = a.data;
+        for (int i = 0; i < a.numRows; i++) {
+            for (int j = 0; j < n; j++) {
+                data[i * n + j] = scale[i] * data[i * n + j] * scale[j];
+            }
+        }
     }
 
     /** 1/(||C||_∞ trace(C^{-1})), a lower bound on λ_min/λ_max of a symmetric positive-definite C; 0 if not finite. */
