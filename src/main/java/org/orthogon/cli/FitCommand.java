@@ -4,7 +4,6 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.time.Instant;
 import java.util.List;
-import java.util.Map;
 import java.util.concurrent.Callable;
 import org.orthogon.analysis.SensitivityGrid;
 import org.orthogon.gmm.GmmFit;
@@ -67,6 +66,7 @@ final class FitCommand implements Callable<Integer> {
                 : List.of();
         List<FittedRun.RestrictionTest> restrictions = run.restrictionTests();
         ObjectNode results = JsonResults.fit(spec, prepared.sample(), fit);
+        JsonResults.addInputWarnings(results, prepared.warnings());
         if (!restrictions.isEmpty()) {
             JsonResults.addRestrictions(results, restrictions);
         }
@@ -81,13 +81,13 @@ final class FitCommand implements Callable<Integer> {
         Path folder = null;
         if (output.requested()) {
             folder = FitReport.writeFolder(output.target(folderName), output.overwrite, results, spec, prepared, fit,
-                    premia.orElse(null),
+                    premia.orElse(null), restrictions, grid,
                     new Manifest.Run("fit", commandSpec.commandLine().getParseResult().originalArgs(),
-                            Version.current(), started, Map.of()));
+                            Version.current(), started, Manifest.seeds(fit)));
         }
         if (!output.quiet) {
             PrintWriter out = commandSpec.commandLine().getOut();
-            out.print(ConsoleReport.render(spec, prepared.sample(), fit, prepared.notes(), restrictions));
+            out.print(ConsoleReport.render(spec, prepared, fit, restrictions));
             premia.ifPresent(p -> out.print(ConsoleReport.renderRiskPremia(p)));
             if (sensitivity) {
                 out.print("\n" + SensitivityReport.render(grid, prepared.moments().parameterNames()));

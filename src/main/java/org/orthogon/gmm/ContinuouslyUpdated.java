@@ -26,7 +26,7 @@ import org.orthogon.moments.MomentModel;
  * The continuously-updated GMM estimator of Hansen, Heaton and Yaron (1996, "Finite-sample properties of
  * some alternative GMM estimators", Journal of Business and Economic Statistics 14):
  * θ̂ = argmin Q(θ), Q(θ) = T g_T(θ)' S(θ)^{-1} g_T(θ), with S(θ) re-estimated at every θ by the run's
- * long-run options (an automatic bandwidth is re-selected at every evaluation, DESIGN.md section 3).
+ * long-run options (an automatic bandwidth is re-selected at every evaluation; docs/methods.md).
  *
  * <p>Q has no convenient analytic gradient once S moves with θ, so it is minimised derivative-free in
  * standardised coordinates u = (θ - θ̂2)/se(θ̂2): by BOBYQA (Powell 2009, "The BOBYQA algorithm for bound

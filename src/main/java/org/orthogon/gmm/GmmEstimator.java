@@ -13,7 +13,7 @@ import org.orthogon.moments.MomentModel;
 
 /**
  * GMM estimation (Hansen 1982, "Large sample properties of generalized method of moments estimators",
- * Econometrica 50) following DESIGN.md section 3, with W0 the initial weight of the options (identity,
+ * Econometrica 50) as docs/methods.md states it, with W0 the initial weight of the options (identity,
  * the inverse second-moment matrix G^{-1} of the payoffs, or a user diagonal):
  * <ul>
  *   <li>one-step: θ̂ = argmin T g' W0 g; covariance by the sandwich

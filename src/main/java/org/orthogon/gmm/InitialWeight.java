@@ -7,7 +7,7 @@ import org.orthogon.moments.MomentModel;
 
 /**
  * The fixed weight of a one-step estimate, and the first-step weight of the two-step, iterated and
- * continuously-updated estimators (DESIGN.md section 3).
+ * continuously-updated estimators (docs/methods.md).
  */
 public sealed interface InitialWeight {
 

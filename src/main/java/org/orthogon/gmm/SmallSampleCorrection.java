@@ -8,7 +8,7 @@ import org.orthogon.longrun.LongRunCovariance;
 import org.orthogon.longrun.LongRunEstimate;
 
 /**
- * The optional small-sample factor c = T/(T - P) applied to S (DESIGN.md section 3; off by default).
+ * The optional small-sample factor c = T/(T - P) applied to S (off by default; docs/methods.md).
  *
  * <p>Scaling S by a constant leaves every estimator's minimiser unchanged (W = (cS)^{-1} is a multiple
  * of S^{-1}; the continuously-updated objective is scaled as a whole), so the correction acts on what

@@ -13,7 +13,8 @@ import org.jtransforms.fft.DoubleFFT_1D;
  * {@link #longRun(Kernel, double, DMatrixRMaj)}); Γ_0 and whole-number Bartlett bandwidths are symmetric
  * rank-k products of the series or of its moving sums.
  *
- * <p>The divisor is T, not T - j (DESIGN.md section 3). Not thread-safe.
+ * <p>The divisor is T, not T - j, as in Newey and West (1987) and Andrews (1991); it keeps S positive
+ * semidefinite for kernels with a non-negative spectral window. Not thread-safe.
  */
 public final class Autocovariances {
 
@@ -395,15 +396,9 @@ public final class Autocovariances {
         return n == 1;
     }
 
-    /** The last lag that can carry weight: floor(b) for truncated kernels, every lag for QS. */
+    /** The last lag that can carry weight, from the kernel's support (every lag for QS). */
     int lastLag(Kernel kernel, double bandwidth) {
-        if (kernel == Kernel.NONE || bandwidth == 0.0) {
-            return 0;
-        }
-        if (!kernel.isTruncated()) {
-            return maxLag();
-        }
-        return (int) Math.min(maxLag(), Math.floor(bandwidth));
+        return kernel.lastWeightedLag(bandwidth, maxLag());
     }
 
     /** Computes Γ_j up to lag {@code last}, growing the store once so the lag loop never allocates. */
