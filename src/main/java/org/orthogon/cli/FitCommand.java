@@ -38,6 +38,9 @@ final class FitCommand implements Callable<Integer> {
     @Mixin
     ResultOptions output;
 
+    @Mixin
+    ThreadsOption threads;
+
     @Option(names = "--sensitivity", description = "also refit under every kernel and bandwidth choice of the "
             + "sensitivity grid (HC; Bartlett, Parzen, Tukey-Hanning lags 0-12; QS b = 1-13; Andrews and Newey-West "
             + "rules; with and without prewhitening) and flag verdicts that differ at 5%%")
@@ -51,13 +54,15 @@ final class FitCommand implements Callable<Integer> {
         Instant started = Instant.now();
         String folderName = ResultOptions.stem(modelFile);
         output.checkEarly(folderName);
+        int threadCount = threads.count();
         RunSpec spec = overrides.apply(ModelFile.read(modelFile));
         FittedRun run = FittedRun.of(spec);
         PreparedRun prepared = run.prepared();
         GmmFit fit = run.fit();
         List<SensitivityGrid.SensitivityRow> grid = sensitivity
                 ? SensitivityGrid.run(prepared.moments(), prepared.startValues(), fit, spec.estimation().centered(),
-                        choice -> FittedRun.options(spec.withEstimation(spec.estimation().withLongRun(choice)), prepared))
+                        choice -> FittedRun.options(spec.withEstimation(spec.estimation().withLongRun(choice)), prepared),
+                        threadCount)
                 : List.of();
         List<FittedRun.RestrictionTest> restrictions = run.restrictionTests();
         ObjectNode results = JsonResults.fit(spec, prepared.sample(), fit);

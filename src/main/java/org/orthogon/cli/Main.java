@@ -1,6 +1,8 @@
 package org.orthogon.cli;
 
 import java.io.PrintWriter;
+import java.util.LinkedHashMap;
+import java.util.Map;
 import org.orthogon.data.InputException;
 import org.orthogon.data.Suggestions;
 import org.orthogon.gmm.EstimationException;
@@ -12,10 +14,28 @@ import picocli.CommandLine.Command;
  * usage, 3 estimation failed, 1 a bug in Orthogon (docs/errors.md).
  */
 @Command(name = "orthogon", mixinStandardHelpOptions = true, versionProvider = Version.class,
-        description = "Tests whether a stochastic discount factor prices a set of test assets, by GMM.",
-        subcommands = {FitCommand.class, CompareCommand.class, TwoPassCommand.class, StabilityCommand.class, CheckCommand.class,
-            SimulateCommand.class, CommandLine.HelpCommand.class})
+        description = "Tests whether a stochastic discount factor prices a set of test assets, by GMM.")
 public final class Main {
+    /**
+     * The verbs, in the order help lists them. Creating a command line makes picocli reflect over every
+     * registered command's options and mixins, which is a good part of a short run's start, so only the
+     * verb named first on the command line is registered; anything else (help, --version, a typo) gets
+     * them all.
+     */
+    private static final Map<String, Class<?>> VERBS = verbs();
+
+    private static Map<String, Class<?>> verbs() {
+        Map<String, Class<?>> verbs = new LinkedHashMap<>();
+        verbs.put("fit", FitCommand.class);
+        verbs.put("compare", CompareCommand.class);
+        verbs.put("two-pass", TwoPassCommand.class);
+        verbs.put("stability", StabilityCommand.class);
+        verbs.put("check", CheckCommand.class);
+        verbs.put("simulate", SimulateCommand.class);
+        verbs.put("help", CommandLine.HelpCommand.class);
+        return verbs;
+    }
+
     public static final int EXIT_OK = 0;
     public static final int EXIT_BUG = 1;
     public static final int EXIT_INPUT = 2;
@@ -30,6 +50,12 @@ public final class Main {
     public static int run(PrintWriter out, PrintWriter err, String... args) {
         boolean debug = java.util.Arrays.asList(args).contains("--debug");
         CommandLine line = new CommandLine(new Main());
+        String first = args.length == 0 ? "" : args[0];
+        if (VERBS.containsKey(first) && !first.equals("help")) {
+            line.addSubcommand(first, VERBS.get(first));
+        } else {
+            VERBS.forEach(line::addSubcommand);
+        }
         line.setOut(out);
         line.setErr(err);
         line.setParameterExceptionHandler((ex, arguments) -> {

@@ -73,6 +73,9 @@ final class StabilityCommand implements Callable<Integer> {
     @Mixin
     ResultOptions output;
 
+    @Mixin
+    ThreadsOption threads;
+
     @picocli.CommandLine.Spec
     picocli.CommandLine.Model.CommandSpec commandSpec;
 
@@ -81,6 +84,7 @@ final class StabilityCommand implements Callable<Integer> {
         Instant started = Instant.now();
         String folderName = ResultOptions.stem(modelFile) + "-stability";
         output.checkEarly(folderName);
+        int threadCount = threads.count();
         RunSpec spec = withCommandLine(overrides.apply(ModelFile.read(modelFile)));
         StabilitySpec choices = spec.stability();
         PreparedRun prepared = ModelAssembler.prepare(spec);
@@ -104,14 +108,14 @@ final class StabilityCommand implements Callable<Integer> {
                 try (Progress progress = Progress.start("sup-Wald, " + options.method().id(), plan.candidateCount())) {
                     sup = Stability.supWald(prepared.moments(), prepared.startValues(), prepared.dates(), options,
                             choices.trimming(), seed == null ? SupWaldDistribution.DEFAULT_SEED : seed,
-                            SupWaldDistribution.DEFAULT_DRAWS, progress);
+                            SupWaldDistribution.DEFAULT_DRAWS, threadCount, progress);
                 }
             }
             List<Stability.PeriodFit> rolling = List.of();
             if (choices.window().isPresent()) {
                 try (Progress progress = Progress.start("windows, " + options.method().id(), plan.windowCount())) {
                     rolling = Stability.windows(prepared.moments(), prepared.startValues(), prepared.dates(), options,
-                            choices.window().get(), choices.step(), choices.expanding(), progress);
+                            choices.window().get(), choices.step(), choices.expanding(), threadCount, progress);
                 }
             }
             results.add(new StabilityReport.Variant(label, periods,

@@ -113,10 +113,6 @@ public sealed interface InitialWeight {
 
     /** G = (1/T) Σ_t x_t x_t' of {@link MomentModel#payoffs()} (Hansen and Jagannathan 1997). */
     static DMatrixRMaj secondMoments(MomentModel model) {
-        DMatrixRMaj x = model.payoffs();
-        DMatrixRMaj g = new DMatrixRMaj(x.numCols, x.numCols);
-        CommonOps_DDRM.multTransA(x, x, g);
-        CommonOps_DDRM.divide(g, x.numRows);
-        return Matrices.symmetrize(g);
+        return org.orthogon.longrun.LongRunCovariance.secondMoments(model.payoffs());
     }
 }

@@ -54,8 +54,7 @@ public final class SmallSampleCorrection {
                 weights[i] *= c;
             }
             double statistic = t * hj.value() * hj.value();
-            hj = new HjDistance(hj.value(), HansenJagannathan.weightedChiSquareUpperTail(statistic, weights, hj.seed(),
-                    hj.draws()), hj.seed(), hj.draws(), weights);
+            hj = HansenJagannathan.withPValue(hj.value(), statistic, weights, hj.seed(), hj.draws());
         }
         List<String> warnings = new ArrayList<>(fit.warnings());
         warnings.add(String.format(java.util.Locale.ROOT, "S multiplied by the small-sample factor T/(T-P) = %.6f", c));

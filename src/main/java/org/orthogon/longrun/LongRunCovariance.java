@@ -36,14 +36,16 @@ public final class LongRunCovariance {
      */
     public static LongRunEstimate estimate(DMatrixRMaj moments, LongRunOptions options) {
         Objects.requireNonNull(options, "options");
-        Autocovariances ac = Autocovariances.of(moments, options.centered());
         List<String> warnings = new ArrayList<>();
         if (!options.prewhiten()) {
+            // nothing of this estimate outlives it, so its series lives in the thread's work arrays
+            Autocovariances ac = Autocovariances.inWorkspace(moments, options.centered());
             double b = bandwidth(ac, options, moments.numRows, false, warnings);
             DMatrixRMaj s = ac.longRun(options.kernel(), b);
             checkPositiveSemidefinite(s, options.kernel(), warnings);
             return new LongRunEstimate(s, options.kernel(), b, options.centered(), false, warnings);
         }
+        Autocovariances ac = Autocovariances.of(moments, options.centered());
         Prewhitening pw = Prewhitening.fit(ac.series(), ac.observations(), ac.columns());
         // The residuals' autocovariances still divide by the original T, as R's sandwich does (n.orig).
         Autocovariances residuals = Autocovariances.ofSeries(pw.residuals, pw.rows, ac.columns(),
@@ -150,6 +152,19 @@ public final class LongRunCovariance {
         double[] w = new double[ac.columns()];
         java.util.Arrays.fill(w, 1.0);
         return w;
+    }
+
+    /**
+     * The second-moment matrix (1/T) Σ_t x_t x_t' of the rows of a T x K matrix, as the symmetric
+     * rank-k product of {@link CrossProducts}: the uncentered Γ_0, and the G of the Hansen-Jagannathan
+     * distance (Hansen and Jagannathan 1997). Returns a new symmetric K x K matrix.
+     */
+    public static DMatrixRMaj secondMoments(DMatrixRMaj x) {
+        int k = x.numCols;
+        DMatrixRMaj g = new DMatrixRMaj(k, k);
+        CrossProducts.addUpper(x.data, x.data, x.numRows, k, g.data);
+        CrossProducts.symmetricFromUpper(g.data, k, 1.0 / x.numRows);
+        return g;
     }
 
     /**

@@ -111,4 +111,27 @@ public interface MomentModel {
     default java.util.Optional<FixedSelection> fixedSelection() {
         return java.util.Optional.empty();
     }
+
+    // Repeated fits (subsample windows, bootstrap draws): evaluation without allocation, per-row Jacobians.
+
+    /**
+     * The T x K contributions f_t(θ)' written into {@code out}, reshaped to T x K, for inner loops that
+     * evaluate many θ. The default copies {@link #contributions(double[])}; models override it to
+     * write in place.
+     */
+    default void contributions(double[] theta, DMatrixRMaj out) {
+        DMatrixRMaj f = contributions(theta);
+        out.reshape(f.numRows, f.numCols);
+        System.arraycopy(f.data, 0, out.data, 0, f.getNumElements());
+    }
+
+    /**
+     * The Jacobian of every row, ∂f_t(θ)/∂θ': a T x (K·P) matrix whose row t holds the K x P matrix
+     * of observation t row-major, so that the mean Jacobian D is the mean of the rows. For a model linear
+     * in θ it does not depend on θ and f_t(θ) = f_t(0) + J_t θ, so window means of f_t(0) and J_t, and
+     * with them every subsample's closed-form estimate, come from running sums.
+     */
+    default DMatrixRMaj rowJacobians(double[] theta) {
+        throw new UnsupportedOperationException(getClass().getSimpleName() + " has no per-row Jacobians");
+    }
 }

@@ -58,8 +58,7 @@ public final class ConsoleReport {
         out.append(String.format(Locale.ROOT, "  statistic %s, %d degrees of freedom, p-value %s%n",
                 fixed(over.statistic(), 3), over.df(), fixed(over.pValue(), 4)));
         fit.hj().ifPresent(hj -> out.append(String.format(Locale.ROOT, "Hansen-Jagannathan distance %s, p-value %s "
-                + "(simulated weighted chi-square limit, seed %d, %d draws)%n", number(hj.value()), fixed(hj.pValue(), 4),
-                hj.seed(), hj.draws())));
+                + "(%s)%n", number(hj.value()), fixed(hj.pValue(), 4), hj.pValueSource())));
         out.append('\n');
 
         out.append(beta.isPresent() ? "Pricing errors alpha = mean excess return - beta'lambda (GMM standard errors)\n"

@@ -174,8 +174,7 @@ public final class FitReport {
                 Cell.text(""), Cell.fixed(hj.pValue(), 4)));
         table.note("p-values from the chi-square distribution with K - P degrees of freedom, a large-sample "
                 + "approximation.");
-        fit.hj().ifPresent(hj -> table.note(String.format(Locale.ROOT, "Hansen-Jagannathan distance: p-value from "
-                + "its simulated weighted chi-square limit (seed %d, %d draws).", hj.seed(), hj.draws())));
+        fit.hj().ifPresent(hj -> table.note("Hansen-Jagannathan distance: p-value from " + hj.pValueSource() + "."));
         return table.build();
     }
 

@@ -80,7 +80,7 @@ public final class JsonResults {
             ObjectNode node = root.putObject("hj_distance");
             number(node, "value", hj.value());
             number(node, "p_value", hj.pValue());
-            node.put("p_value_method", "simulated weighted chi-square limit (Jagannathan and Wang 1996)");
+            node.put("p_value_method", hj.method().id());
             node.put("seed", hj.seed());
             node.put("draws", hj.draws());
         });

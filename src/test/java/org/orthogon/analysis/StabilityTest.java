@@ -106,7 +106,8 @@ class StabilityTest {
         int at = dates.indexOf(sup.breakDate());
         double atBreak = Stability.equalityTest(Stability.periods(moments, new double[1], dates, List.of(at), TWO_STEP))
                 .statistic();
-        assertThat(atBreak).isEqualTo(max);
+        // the sup-Wald sides come from running sums, the periods from their own rows: equal up to rounding
+        assertThat(atBreak).isCloseTo(max, within(1e-10 * max));
     }
 
     @Test

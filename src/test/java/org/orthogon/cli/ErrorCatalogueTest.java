@@ -318,6 +318,8 @@ class ErrorCatalogueTest {
         cases.add(withArgs(refused("negative-lags-option", POWER, cli -> { }, "--lags", 0, "negative"), "--lags", "-1"));
         cases.add(withArgs(refused("unknown-kernel-option", POWER, cli -> { }, "gaussian", 0, "quadratic-spectral"),
                 "--kernel", "gaussian"));
+        cases.add(withArgs(refused("threads-option-below-one", POWER, cli -> { }, "--threads", 0, "below one"),
+                "--threads", "0"));
         return cases;
     }
 
