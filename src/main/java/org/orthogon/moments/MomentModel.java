@@ -93,4 +93,14 @@ public interface MomentModel {
     default int parameterCount() {
         return parameterNames().size();
     }
+
+    /**
+     * The Jacobian of every row, ∂f_t(θ)/∂θ': a T x (K·P) matrix whose row t holds the K x P matrix
+     * of observation t row-major, so that the mean Jacobian D is the mean of the rows. Finite-sample
+     * corrections of the two-step covariance (Windmeijer 2005) and the K statistic (Kleibergen 2005)
+     * need these per-observation derivatives, not only their mean.
+     */
+    default DMatrixRMaj rowJacobians(double[] theta) {
+        throw new UnsupportedOperationException(getClass().getSimpleName() + " has no per-row Jacobians");
+    }
 }

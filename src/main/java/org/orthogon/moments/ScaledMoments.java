@@ -109,6 +109,37 @@ public final class ScaledMoments implements MomentModel {
         return scaledRows(raw);
     }
 
+    /**
+     * ∂f_t/∂θ' row by row from the family's ∂e_t/∂θ_p (analytic for the built-in families, central
+     * differences for formula SDFs), times the lagged instruments when the moments are scaled.
+     */
+    @Override
+    public DMatrixRMaj rowJacobians(double[] theta) {
+        checkLength(theta);
+        int rows = observations();
+        int params = parameterNames().size();
+        int moments = assets * instrumentCount;
+        double[][] derivatives = new double[params][rows * assets];
+        errors.errorDerivatives(theta, derivatives);
+        DMatrixRMaj out = new DMatrixRMaj(rows, moments * params);
+        double[] scaled = instruments == null ? null : new double[rows * moments];
+        for (int p = 0; p < params; p++) {
+            double[] column = derivatives[p];
+            if (scaled != null) {
+                kronecker(derivatives[p], scaled);
+                column = scaled;
+            }
+            for (int t = 0; t < rows; t++) {
+                int in = t * moments;
+                int at = t * moments * params + p;
+                for (int k = 0; k < moments; k++) {
+                    out.data[at + k * params] = column[in + k];
+                }
+            }
+        }
+        return out;
+    }
+
     /** The T x N values as the T x K moment matrix: themselves, or times the lagged instruments. */
     private DMatrixRMaj scaledRows(double[] raw) {
         int rows = observations();
