@@ -97,23 +97,32 @@ public final class WindmeijerCorrection {
      * The correction of a two-step fit made by {@link GmmEstimator#estimate} from {@code start} with
      * {@code options}: the first step is repeated (it is deterministic, so θ̂1 is the estimator's own).
      * Empty when {@link #notApplicable(GmmFit)} says so.
+     *
+     * @throws EstimationException when S at the first step, G2'W2G2 or G1'W0G1 is singular
      */
     public static Optional<Result> of(MomentModel model, double[] start, GmmOptions options, GmmFit fit) {
         if (notApplicable(fit).isPresent()) {
             return Optional.empty();
         }
+        try {
+            return Optional.of(corrected(model, start, options, fit));
+        } catch (Matrices.SingularMatrixException e) {
+            throw GmmEstimator.refusal(e, model);
+        }
+    }
+
+    private static Result corrected(MomentModel model, double[] start, GmmOptions options, GmmFit fit) {
         ParameterBounds bounds = options.bounds().forParameters(model.parameterCount());
         DMatrixRMaj initial = options.initialWeight().matrix(model);
         WeightedMinimizer.Minimum first = WeightedMinimizer.minimize(model, initial, bounds.clamp(start), bounds);
         Result raw = correct(model, first.theta(), fit.estimates(), initial, options.longRun());
         if (!options.smallSample()) {
-            return Optional.of(raw);
+            return raw;
         }
         double c = LongRunCovariance.smallSampleFactor(model.observations(), model.parameterCount());
         DMatrixRMaj scaled = raw.covariance();
         CommonOps_DDRM.scale(c, scaled);
-        return Optional.of(new Result(scaled, standardErrors(scaled), raw.firstStep(), raw.bandwidth(),
-                raw.derivative()));
+        return new Result(scaled, standardErrors(scaled), raw.firstStep(), raw.bandwidth(), raw.derivative());
     }
 
     /**

@@ -25,12 +25,26 @@ public final class FitReport {
 
     /** The document of one fit. */
     public static Report build(RunSpec spec, PreparedRun prepared, GmmFit fit) {
-        return build(spec, prepared, fit, null);
+        return build(spec, prepared, fit, new Extras(null, null, null));
     }
 
     /** The document of one fit, with the risk premia of a demeaned linear SDF when given. */
     public static Report build(RunSpec spec, PreparedRun prepared, GmmFit fit,
             org.orthogon.spec.FittedRun.RiskPremiumEstimates premia) {
+        return build(spec, prepared, fit, new Extras(premia, null, null));
+    }
+
+    /**
+     * What a fit may add to its report, each null when absent: the risk premia of a demeaned linear SDF,
+     * Windmeijer's corrected standard errors, the weak-identification-robust sets.
+     */
+    public record Extras(org.orthogon.spec.FittedRun.RiskPremiumEstimates premia,
+            org.orthogon.gmm.WindmeijerCorrection.Result windmeijer, org.orthogon.robust.RobustSets.Analysis robust) {
+    }
+
+    /** The document of one fit with its extras. */
+    public static Report build(RunSpec spec, PreparedRun prepared, GmmFit fit, Extras extras) {
+        var premia = extras.premia();
         var sample = prepared.sample();
         Report.Builder report = Report.builder(spec.title())
                 .subtitle(String.format(Locale.ROOT, "%s SDF, %s GMM; %s sample %s to %s, T = %d",
@@ -39,7 +53,8 @@ public final class FitReport {
                 .subtitle(String.format(Locale.ROOT, "N = %d test assets, K = %d moments, P = %d parameters",
                         prepared.assets().size(), fit.momentCount(), fit.parameters().size()))
                 .subtitle("Long-run covariance: " + ConsoleReport.describeLongRun(fit));
-        report.section("Parameters").table(parameters(fit));
+        report.section("Parameters").table(parameters(fit, extras.windmeijer() == null ? null
+                : extras.windmeijer().stdErrors()));
         if (premia != null) {
             report.table(riskPremia(premia));
         }
@@ -48,6 +63,9 @@ public final class FitReport {
         report.section("Pricing errors").table(pricingErrors(fit, means)).chart(errorChart(fit));
         if (means != null) {
             report.chart(scatter(prepared.assets(), means));
+        }
+        if (extras.robust() != null) {
+            RobustSetsReport.addSection(report, extras.robust());
         }
         if (!prepared.notes().isEmpty()) {
             report.section("Data preparation");
@@ -64,23 +82,40 @@ public final class FitReport {
      * @return the folder written
      */
     public static Path writeFolder(Path target, boolean overwrite, ObjectNode results, RunSpec spec,
-            PreparedRun prepared, GmmFit fit, org.orthogon.spec.FittedRun.RiskPremiumEstimates premia,
-            Manifest.Run run) {
-        return ReportFiles.publish(target, overwrite, build(spec, prepared, fit, premia), results, run, List.of(spec),
+            PreparedRun prepared, GmmFit fit, Extras extras, Manifest.Run run) {
+        return ReportFiles.publish(target, overwrite, build(spec, prepared, fit, extras), results, run, List.of(spec),
                 List.of(prepared.inputs()));
     }
 
     /** The parameter table, standard errors under the estimates. */
     public static Table parameters(GmmFit fit) {
+        return parameters(fit, null);
+    }
+
+    /** The parameter table, with Windmeijer's corrected standard errors in a column when given. */
+    public static Table parameters(GmmFit fit, double[] windmeijer) {
         String level = String.format(Locale.ROOT, "%.0f%%", 100 * fit.confidenceLevel());
-        Table.Builder table = Table.builder("parameters", "Parameter estimates", "parameter", "estimate",
-                "std. error", "t-stat", "p-value", level + " low", level + " high").errorUnder("estimate", "std. error");
+        List<String> header = new ArrayList<>(List.of("parameter", "estimate", "std. error", "t-stat", "p-value",
+                level + " low", level + " high"));
+        if (windmeijer != null) {
+            header.add(3, "Windmeijer s.e.");
+        }
+        Table.Builder table = Table.builder("parameters", "Parameter estimates", header)
+                .errorUnder("estimate", "std. error");
         List<ConfidenceInterval> intervals = fit.confidenceIntervals();
         for (int i = 0; i < fit.parameters().size(); i++) {
             ParameterEstimate p = fit.parameters().get(i);
-            table.row(Cell.text(p.name()), Cell.number(p.estimate()), Cell.number(p.stdError()),
-                    Cell.fixed(p.tStat(), 2), Cell.fixed(p.pValue(), 4), Cell.number(intervals.get(i).lower()),
-                    Cell.number(intervals.get(i).upper()));
+            List<Cell> row = new ArrayList<>(List.of(Cell.text(p.name()), Cell.number(p.estimate()),
+                    Cell.number(p.stdError()), Cell.fixed(p.tStat(), 2), Cell.fixed(p.pValue(), 4),
+                    Cell.number(intervals.get(i).lower()), Cell.number(intervals.get(i).upper())));
+            if (windmeijer != null) {
+                row.add(3, Cell.number(windmeijer[i]));
+            }
+            table.row(row);
+        }
+        if (windmeijer != null) {
+            table.note("Windmeijer s.e.: corrected for the estimated weight of two-step GMM (Windmeijer 2005, "
+                    + "Journal of Econometrics 126); t-statistics, p-values and intervals use the usual standard errors.");
         }
         ChiSquareTest over = fit.overidentification();
         return table.note("Standard errors in parentheses; p-values two-sided against zero, normal approximation.")

@@ -22,10 +22,12 @@ import org.orthogon.moments.MomentModel;
  *       profile is evaluated on a grid over the search range, outwards from the estimate and back, every search
  *       started at a neighbour's answer; where the statistic crosses its critical value
  *       between two grid points the crossing is located by bisection.</li>
- *   <li>Joint sets {θ : S(θ) ≤ χ²_K(level)} and {θ : K(θ) ≤ χ²_P(level)} mapped on a grid when P = 2, reported
- *       through their projections on each axis at the grid's resolution; for P &gt; 2 the joint sets are not
- *       mapped. The joint S-set is empty exactly when min_θ S(θ), the continuously-updated objective, exceeds
- *       χ²_K: every θ is then rejected and the moment conditions with it.</li>
+ *   <li>Joint sets {θ : S(θ) ≤ χ²_K(level)} and {θ : K(θ) ≤ χ²_P(level)}. The joint S-set's projection on axis i
+ *       is exactly {θ_i : min over the others of S ≤ χ²_K}, read off the same profile for any P. When P = 2 both
+ *       joint sets are also mapped on a grid over the plane, and the joint K-set is projected at the grid's
+ *       resolution; for P &gt; 2 the joint K-set is not mapped. The joint S-set is empty exactly when min_θ S(θ),
+ *       the continuously-updated objective, exceeds χ²_K: every θ is then rejected and the moment conditions
+ *       with it.</li>
  * </ul>
  * Sets are unions of intervals and may be empty or unbounded: an end that reaches the search range is
  * reported open (null), with the reason. The grid can step over a piece of the set narrower than its
@@ -174,6 +176,9 @@ public final class RobustSets {
                     estimate[i], lowerBound, upperBound, (x, warm) -> run.kAt(x, warm), run.thetas);
             sets.add(sSet);
             sets.add(withFlatPointsNamed(kSet, grid, run.s, sCritical, run.k, kCritical));
+            // The joint S-set projected on axis i is {x : min over the others of S ≤ χ²_K}: the same profile.
+            sets.add(extract(names.get(i), options.level(), "S", "joint-projection", k, jointS, grid, run.s,
+                    estimate[i], lowerBound, upperBound, (x, warm) -> run.sAt(x, warm), run.thetas));
         }
         List<String> notes = new ArrayList<>();
         notes.add(String.format(Locale.ROOT, "The other parameters are concentrated out by local derivative-free "
@@ -193,8 +198,9 @@ public final class RobustSets {
             }
             sets.addAll(projections(grid, options.level(), k, p, box));
         } else if (p > 2) {
-            notes.add(String.format(Locale.ROOT, "The joint sets of all %d parameters are not mapped (that would take "
-                    + "a grid in %d dimensions); the concentrated sets are reported instead.", p, p));
+            notes.add(String.format(Locale.ROOT, "The joint S-set of all %d parameters is reported through its exact "
+                    + "projections on each axis (the profile against chi-square(%d)); the joint K-set is not mapped (that "
+                    + "would take a grid in %d dimensions).", p, k, p));
         }
         if (minimumS > jointS) {
             notes.add(String.format(Locale.ROOT, "The joint S-set is empty: the smallest S met, %.4g, exceeds "
@@ -491,10 +497,13 @@ public final class RobustSets {
         return new JointGrid(names.get(0), names.get(1), xs, ys, s, k, sCritical, kCritical, estimate);
     }
 
-    /** The joint sets' projections on each axis at the grid's resolution. */
+    /**
+     * The joint K-set's projections on each axis at the grid's resolution (the joint S-set's come exactly from
+     * the profiles).
+     */
     private static List<RobustSet> projections(JointGrid grid, double level, int k, int p, ParameterBounds box) {
         List<RobustSet> out = new ArrayList<>();
-        for (String method : List.of("S", "K")) {
+        for (String method : List.of("K")) {
             double[][] values = method.equals("S") ? grid.s : grid.k;
             double critical = method.equals("S") ? grid.sCritical : grid.kCritical;
             int df = method.equals("S") ? k : p;

@@ -261,6 +261,12 @@ class ErrorCatalogueTest {
         cases.add(withArgs(refused("negative-lags-option", POWER, cli -> { }, "--lags", 0, "negative"), "--lags", "-1"));
         cases.add(withArgs(refused("unknown-kernel-option", POWER, cli -> { }, "gaussian", 0, "quadratic-spectral"),
                 "--kernel", "gaussian"));
+        cases.add(withArgs(refused("s-range-unknown-parameter", POWER, cli -> { }, "--s-range", 0, "gama",
+                "did you mean \"gamma\""), "--s-sets", "--s-range", "gama=0:40"));
+        cases.add(withArgs(refused("s-range-malformed", POWER, cli -> { }, "--s-range", 0, "NAME=LOW:HIGH"),
+                "--s-sets", "--s-range", "gamma=40:0"));
+        cases.add(withArgs(refused("s-points-too-few", POWER, cli -> { }, "--s-points", 0, "at least 11"),
+                "--s-sets", "--s-points", "5"));
         return cases;
     }
 

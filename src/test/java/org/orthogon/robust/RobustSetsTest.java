@@ -135,11 +135,15 @@ class RobustSetsTest {
             assertInterval(set(analysis, name, "S", "concentrated"), q.center[i] - halfS, q.center[i] + halfS, 1e-7);
             double halfK = Math.sqrt(kOne * q.inverse.get(i, i));
             assertInterval(set(analysis, name, "K", "concentrated"), q.center[i] - halfK, q.center[i] + halfK, 1e-7);
-            // Projections are read off the 41 x 41 grid: exact to within one spacing.
-            RobustSet projection = set(analysis, name, "S", "joint-projection");
+            // The joint S-set's projection comes from the profile; the joint K-set's is read off the 41 x 41 grid,
+            // exact to within one spacing: the Wald ellipse's projection θ̂_i ± sqrt(χ²_2 [A^{-1}]_ii).
             double halfJoint = Math.sqrt((sJoint - q.minimum) * q.inverse.get(i, i));
+            assertInterval(set(analysis, name, "S", "joint-projection"), q.center[i] - halfJoint,
+                    q.center[i] + halfJoint, 1e-7);
+            RobustSet projection = set(analysis, name, "K", "joint-projection");
+            double halfEllipse = Math.sqrt(RobustSets.quantile(2, 0.95) * q.inverse.get(i, i));
             double spacing = (projection.searchHigh() - projection.searchLow()) / 40;
-            assertInterval(projection, q.center[i] - halfJoint, q.center[i] + halfJoint, spacing);
+            assertInterval(projection, q.center[i] - halfEllipse, q.center[i] + halfEllipse, spacing);
         }
         assertThat(analysis.sets()).allSatisfy(s -> assertThat(s.containsEstimate()).isTrue());
     }
