@@ -90,9 +90,10 @@ public final class ConsoleReport {
 
         out.append(renderRestrictions(restrictions));
         GmmDiagnostics d = fit.diagnostics();
-        out.append(String.format(Locale.ROOT, "%ndiagnostics: condition number of S %s, of D'WD %s; %d solver "
-                + "iterations, %d weight updates, %s%n", number(d.conditionS()), number(d.conditionDWD()),
-                d.solverIterations(), d.weightUpdates(), d.clean() ? "converged" : "NOT CLEAN"));
+        out.append(String.format(Locale.ROOT, "%ndiagnostics: condition number of S %s, of D'WD %s; smallest singular "
+                + "value of the scaled D %s; %d solver iterations, %d weight updates, %s%n", number(d.conditionS()),
+                number(d.conditionDWD()), fixed(d.smallestSingularValue(), 3), d.solverIterations(), d.weightUpdates(),
+                d.clean() ? "converged" : "NOT CLEAN"));
         if (!fit.warnings().isEmpty() || !dataNotes.isEmpty()) {
             out.append('\n');
             for (String note : dataNotes) {

@@ -96,6 +96,10 @@ public final class JsonResults {
         diagnostics.put("converged", d.converged());
         ArrayNode atBounds = diagnostics.putArray("parameters_at_bounds");
         d.parametersAtBounds().forEach(atBounds::add);
+        number(diagnostics, "smallest_singular_value_scaled_d", d.smallestSingularValue());
+        diagnostics.put("clean", d.clean());
+        ArrayNode identification = diagnostics.putArray("identification_problems");
+        d.identificationProblems().forEach(identification::add);
         ArrayNode warnings = root.putArray("warnings");
         fit.warnings().forEach(warnings::add);
         root.put("caution", Caution.TEXT);

@@ -384,9 +384,9 @@ public final class RobustSets {
                             critical, number(grid[0])));
                 }
             } else if (Double.isNaN(values[a - 1])) {
-                lower = grid[a];
-                notes.add(String.format(Locale.ROOT, "stops at %s below which the statistic is not defined (the SDF "
-                        + "or S cannot be evaluated there)", number(grid[a])));
+                lower = refine == null ? grid[a] : crossing(grid[a - 1], grid[a], critical, refine, warm[a]);
+                notes.add(String.format(Locale.ROOT, "stops at %s, where the statistic ceases to be defined (the SDF "
+                        + "or S cannot be evaluated at %s)", number(lower), number(grid[a - 1])));
             } else {
                 lower = refine == null ? grid[a] : crossing(grid[a - 1], grid[a], critical, refine, warm[a]);
             }
@@ -403,9 +403,9 @@ public final class RobustSets {
                             values[n - 1], critical, number(grid[n - 1])));
                 }
             } else if (Double.isNaN(values[b + 1])) {
-                upper = grid[b];
-                notes.add(String.format(Locale.ROOT, "stops at %s above which the statistic is not defined (the SDF "
-                        + "or S cannot be evaluated there)", number(grid[b])));
+                upper = refine == null ? grid[b] : crossing(grid[b + 1], grid[b], critical, refine, warm[b]);
+                notes.add(String.format(Locale.ROOT, "stops at %s, where the statistic ceases to be defined (the SDF "
+                        + "or S cannot be evaluated at %s)", number(upper), number(grid[b + 1])));
             } else {
                 upper = refine == null ? grid[b] : crossing(grid[b + 1], grid[b], critical, refine, warm[b]);
             }
@@ -426,7 +426,10 @@ public final class RobustSets {
                 undefined, notes);
     }
 
-    /** The point between an outside x and an inside x where the value meets the critical value, by bisection. */
+    /**
+     * The point between an outside x and an inside x where the value meets the critical value, by bisection; a
+     * point where the value is not defined (NaN) counts as outside.
+     */
     private static double crossing(double outside, double inside, double critical,
             BiFunction<Double, double[], Double> value, double[] warm) {
         double out = outside;

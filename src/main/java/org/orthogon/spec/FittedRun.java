@@ -6,6 +6,7 @@ import org.orthogon.gmm.RiskPremia;
 import org.orthogon.gmm.GmmEstimator;
 import org.orthogon.gmm.GmmFit;
 import org.orthogon.gmm.GmmOptions;
+import org.orthogon.gmm.IdentificationDiagnostics;
 import org.orthogon.gmm.InitialWeight;
 import org.orthogon.gmm.ParameterBounds;
 import org.orthogon.data.InputException;
@@ -87,9 +88,32 @@ public record FittedRun(RunSpec spec, PreparedRun prepared, GmmFit fit) {
         return new FittedRun(spec, prepared, estimate(spec, prepared));
     }
 
-    /** Estimates prepared moments with the spec's [estimation] choices. */
+    /**
+     * Estimates prepared moments with the spec's [estimation] choices, and assesses the identification of the
+     * estimate ({@link IdentificationDiagnostics}) with the economic ranges of the family.
+     */
     public static GmmFit estimate(RunSpec spec, PreparedRun prepared) {
-        return GmmEstimator.estimate(prepared.moments(), prepared.startValues(), options(spec, prepared));
+        GmmFit fit = GmmEstimator.estimate(prepared.moments(), prepared.startValues(), options(spec, prepared));
+        return IdentificationDiagnostics.assess(prepared.moments(), fit, economicRanges(spec.model().family()));
+    }
+
+    /**
+     * The economic ranges of a family's parameters: for the utility families the discount factor β in (0, 1.1)
+     * (a quarterly or monthly β above 1.1 means the agent values the future far above the present), relative risk
+     * aversion γ ≥ 0, and for recursive utility the elasticity of intertemporal substitution ψ &gt; 0 (Epstein and
+     * Zin 1989). The linear factor families and formula SDFs have none: their coefficients take any sign.
+     */
+    public static List<IdentificationDiagnostics.Range> economicRanges(RunSpec.Family family) {
+        IdentificationDiagnostics.Range beta = new IdentificationDiagnostics.Range("beta", 0.0, true, 1.1, true,
+                "the subjective discount factor");
+        IdentificationDiagnostics.Range gamma = new IdentificationDiagnostics.Range("gamma", 0.0, false,
+                Double.POSITIVE_INFINITY, true, "relative risk aversion");
+        return switch (family) {
+            case POWER_UTILITY -> List.of(beta, gamma);
+            case RECURSIVE_UTILITY -> List.of(beta, gamma, new IdentificationDiagnostics.Range("psi", 0.0, true,
+                    Double.POSITIVE_INFINITY, true, "the elasticity of intertemporal substitution"));
+            case LINEAR_FACTOR, EXPRESSION -> List.of();
+        };
     }
 
     /**
