@@ -22,7 +22,8 @@ final class EstimationOverrides {
             description = "none, truncated, bartlett, parzen, tukey-hanning or quadratic-spectral")
     String kernel;
 
-    @Option(names = "--lags", paramLabel = "L", description = "a lag count L (Bartlett: bandwidth L + 1)")
+    @Option(names = "--lags", paramLabel = "L", description = "a lag count L (Bartlett: bandwidth L + 1); over a "
+            + "heteroskedasticity-consistent S without --kernel it means Bartlett")
     Integer lags;
 
     @Option(names = "--bandwidth", paramLabel = "B", description = "a bandwidth b, \"andrews\" or \"newey-west\"")
@@ -44,6 +45,10 @@ final class EstimationOverrides {
         EstimationSpec e = spec.estimation();
         EstimationMethod newMethod = method == null ? e.method() : parseMethod(method);
         Kernel newKernel = kernel == null ? e.kernel() : parseKernel(kernel);
+        if (kernel == null && newKernel == Kernel.NONE && (lags != null || bandwidth != null)) {
+            // Lags asked for on the command line over an S without lags (the Euler families' default): Bartlett.
+            newKernel = Kernel.BARTLETT;
+        }
         if (lags != null && bandwidth != null) {
             throw InputException.general().problem("--lags and --bandwidth were both given",
                     "give one of them: --lags L or --bandwidth B");

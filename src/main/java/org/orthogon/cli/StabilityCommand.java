@@ -19,6 +19,7 @@ import org.orthogon.data.InputException;
 import org.orthogon.data.Period;
 import org.orthogon.gmm.EstimationMethod;
 import org.orthogon.gmm.GmmOptions;
+import org.orthogon.gmm.ManyMoments;
 import org.orthogon.gmm.InitialWeight;
 import org.orthogon.report.CheckReport;
 import org.orthogon.report.JsonResults;
@@ -122,7 +123,7 @@ final class StabilityCommand implements Callable<Integer> {
             results.add(new StabilityReport.Variant(label, periods,
                     periods.isEmpty() ? null : Stability.equalityTest(periods), sup, rolling));
         }
-        warnings.addAll(sizeWarnings(prepared, splitIndices, choices));
+        warnings.addAll(sizeWarnings(prepared, splitIndices, choices, spec.estimation().longRunOptions()));
         ObjectNode json = StabilityReport.json(spec, prepared.sample(), results);
         if (output.json != null) {
             OutputFiles.writeAtomically(output.json, JsonResults.text(json));
@@ -184,7 +185,12 @@ final class StabilityCommand implements Callable<Integer> {
         return indices;
     }
 
-    private static List<String> sizeWarnings(PreparedRun prepared, List<Integer> splits, RunSpec.StabilitySpec choices) {
+    /**
+     * The many-moments warning ({@link ManyMoments}) for the shortest subsample with the model file's long-run
+     * choices: the subsample fits are where K² v / T is largest.
+     */
+    private static List<String> sizeWarnings(PreparedRun prepared, List<Integer> splits, RunSpec.StabilitySpec choices,
+            org.orthogon.longrun.LongRunOptions longRun) {
         List<String> warnings = new ArrayList<>();
         int k = prepared.moments().momentCount();
         int t = prepared.moments().observations();
@@ -195,12 +201,12 @@ final class StabilityCommand implements Callable<Integer> {
         for (int i = 0; i + 1 < bounds.size(); i++) {
             smallest = Math.min(smallest, bounds.get(i + 1) - bounds.get(i));
         }
-        if (k > smallest / 10.0) {
-            warnings.add(String.format(Locale.ROOT, "K = %d moments against subsamples as short as %d observations: "
-                    + "efficient-weight subsample fits make the Wald and sup-Wald statistics far larger than their "
-                    + "limits suggest (over-rejection); read the fixed-weight rows, and treat the p-values as rough", k,
-                    smallest));
-        }
+        int shortest = smallest;
+        ManyMoments.warning(k, shortest, longRun).ifPresent(w -> warnings.add(
+                String.format(Locale.ROOT, "subsamples as short as %d observations: %s; efficient-weight subsample "
+                        + "fits make the Wald and sup-Wald statistics far larger than their limits suggest "
+                        + "(over-rejection), so read the fixed-weight rows and treat the p-values as rough", shortest,
+                        w)));
         return warnings;
     }
 

@@ -1,5 +1,7 @@
 package org.orthogon.report;
 
+import org.orthogon.gmm.ManyMoments;
+
 import java.nio.file.Path;
 import java.nio.file.Paths;
 import java.util.ArrayList;
@@ -14,16 +16,15 @@ public final class CheckReport {
     private CheckReport() {
     }
 
-    /** The warnings a check can give before any estimation. */
-    public static List<String> warnings(PreparedRun prepared) {
+    /**
+     * The warnings a check can give before any estimation, among them the many-moments rule of
+     * {@link ManyMoments} with the model file's long-run choices.
+     */
+    public static List<String> warnings(RunSpec spec, PreparedRun prepared) {
         List<String> warnings = new ArrayList<>();
         int k = prepared.moments().momentCount();
         int t = prepared.sample().observations();
-        if (k > t / 10.0) {
-            warnings.add(String.format(Locale.ROOT, "K = %d moments against T = %d observations (K > T/10): the "
-                    + "efficient weight will be estimated imprecisely and the J test over-rejects in samples this "
-                    + "size; prefer fewer assets or instruments, or a one-step fit", k, t));
-        }
+        ManyMoments.warning(k, t, spec.estimation().longRunOptions()).ifPresent(warnings::add);
         if (k == prepared.moments().parameterCount()) {
             warnings.add("the model is exactly identified (K = P): there will be no overidentifying restrictions to test");
         }
@@ -58,7 +59,7 @@ public final class CheckReport {
         for (String note : prepared.notes()) {
             out.append("note: ").append(note).append('\n');
         }
-        for (String warning : warnings(prepared)) {
+        for (String warning : warnings(spec, prepared)) {
             out.append("WARNING: ").append(warning).append('\n');
         }
         return out.toString();
