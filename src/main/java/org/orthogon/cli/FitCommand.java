@@ -65,9 +65,9 @@ final class FitCommand implements Callable<Integer> {
         RobustSetOptions robustOptions = robustSets.options(spec.estimation().confidenceLevel());
         FittedRun run = FittedRun.of(spec);
         PreparedRun prepared = run.prepared();
-        RobustSetArguments.checkNames(robustOptions, prepared.moments().parameterNames());
-        GmmFit fit = run.fit();
         GmmOptions gmmOptions = FittedRun.options(spec, prepared);
+        RobustSetArguments.checkNames(robustOptions, prepared.moments().parameterNames(), gmmOptions.bounds());
+        GmmFit fit = run.fit();
         Optional<WindmeijerCorrection.Result> windmeijer = WindmeijerCorrection.of(prepared.moments(),
                 prepared.startValues(), gmmOptions, fit);
         RobustSets.Analysis robust = robustOptions == null ? null : RobustSets.compute(prepared.moments(), fit,

@@ -5,6 +5,7 @@ import java.util.List;
 import java.util.Map;
 import org.orthogon.data.InputException;
 import org.orthogon.data.Suggestions;
+import org.orthogon.gmm.ParameterBounds;
 import org.orthogon.robust.RobustSetOptions;
 import picocli.CommandLine.Option;
 
@@ -44,16 +45,29 @@ final class RobustSetArguments {
         return RobustSetOptions.defaults(level).withPoints(n, RobustSetOptions.DEFAULT_JOINT_POINTS).withRanges(parsed);
     }
 
-    /** Refuses a range that names no parameter of the model, with a suggestion. */
-    static void checkNames(RobustSetOptions options, List<String> parameters) {
+    /**
+     * Refuses a range that names no parameter of the model (with a suggestion) or lies wholly outside the
+     * parameter's bounds.
+     */
+    static void checkNames(RobustSetOptions options, List<String> parameters, ParameterBounds bounds) {
         if (options == null) {
             return;
         }
-        for (String name : options.ranges().keySet()) {
-            if (!parameters.contains(name)) {
+        ParameterBounds box = bounds.forParameters(parameters.size());
+        for (Map.Entry<String, double[]> range : options.ranges().entrySet()) {
+            String name = range.getKey();
+            int i = parameters.indexOf(name);
+            if (i < 0) {
                 throw InputException.general().problem("--s-range names \"" + name + "\", which is not a parameter of "
                         + "this model", "use one of " + String.join(", ", parameters)
                         + Suggestions.didYouMean(name, parameters));
+            }
+            double low = Math.max(range.getValue()[0], box.lower()[i]);
+            double high = Math.min(range.getValue()[1], box.upper()[i]);
+            if (!(low < high)) {
+                throw InputException.general().problem("--s-range " + name + "=" + range.getValue()[0] + ":"
+                        + range.getValue()[1] + " lies outside the bounds [" + box.lower()[i] + ", " + box.upper()[i]
+                        + "] of " + name, "give a range that overlaps the bounds");
             }
         }
     }
