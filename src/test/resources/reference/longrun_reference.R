@@ -31,7 +31,7 @@ x <- as.matrix(read.csv(file.path(out_dir, "longrun_series.csv"))[, -1])
 # unchanged. meatHAC(..., adjust = FALSE) returns
 #   (1/n) [sum_t u_t u_t' + sum_{j>=1} w_j sum_t (u_t u_{t-j}' + u_{t-j} u_t')]
 # which is Gamma_0 + sum_j k(j/b)(Gamma_j + Gamma_j') with Gamma_j divided by n: the convention of
-# DESIGN.md section 3. After prewhitening it still divides by the original n (n.orig).
+# Orthogon (docs/methods.md, after Andrews 1991). After prewhitening it still divides by the original n (n.orig).
 estfun.orthogonMoments <- function(x, ...) x$u
 .S3method("estfun", "orthogonMoments", estfun.orthogonMoments)
 moments <- function(u) structure(list(u = u), class = "orthogonMoments")
@@ -43,11 +43,11 @@ kernels <- c(truncated = "Truncated", bartlett = "Bartlett", parzen = "Parzen",
              "tukey-hanning" = "Tukey-Hanning", "quadratic-spectral" = "Quadratic Spectral")
 
 # Bandwidth rules: sandwich gives a column named "(Intercept)" weight 0 by default (it is the
-# score of a regression intercept). Moment columns play no such role and DESIGN.md asks for equal
-# weights, so weights = 1 for every column is passed explicitly.
+# score of a regression intercept). Moment columns play no such role and Orthogon gives every column
+# an equal weight, so weights = 1 for every column is passed explicitly.
 w_equal <- rep(1, ncol(x))
 
-# sandwich's weightsAndrews() drops trailing weights below tol = 1e-7. DESIGN.md's S keeps every
+# sandwich's weightsAndrews() drops trailing weights below tol = 1e-7. Orthogon's S keeps every
 # lag with a non-zero k(j/b) (a Parzen weight of 4e-8 on the last lag still counts), so the
 # references pass the complete weight vector k(j/b), j = 0..n-1, from sandwich's own kweights().
 full_weights <- function(obj, bw, kernel, prewhite) {

@@ -1,5 +1,5 @@
 # Independent reference for org.orthogon.cli.RealDataCheckTest: a two-step GMM fit of power utility
-# on US quarterly macro data, written from the formulas in docs/methods.md and DESIGN.md section 3
+# on US quarterly macro data, written from the formulas in docs/methods.md (Hansen 1982; Newey-West 1987)
 # without any of Orthogon's code and without any GMM package (base R only: optim, nlminb, solve).
 #
 # Source: the data set USMacroG of the R package AER 1.2-10 (US quarterly macroeconomic series

@@ -62,16 +62,27 @@ public final class SensitivityGrid {
      */
     public static List<SensitivityRow> run(MomentModel model, double[] start, GmmFit main, boolean centered,
             Function<LongRunOptions, GmmOptions> estimate) {
+        return run(model, start, main, centered, estimate, ParallelRunner.defaultThreads());
+    }
+
+    /**
+     * As {@link #run(MomentModel, double[], GmmFit, boolean, Function)}, the rows shared among
+     * {@code threads} threads, with the same rows for every thread count. A row's fit leaves out the
+     * Hansen-Jagannathan distance, which the grid does not show.
+     */
+    public static List<SensitivityRow> run(MomentModel model, double[] start, GmmFit main, boolean centered,
+            Function<LongRunOptions, GmmOptions> estimate, int threads) {
         boolean mainRejects = rejects(main.overidentification());
-        return choices(centered).parallelStream()
-                .map(choice -> row(model, start, choice, estimate.apply(choice), mainRejects))
-                .toList();
+        List<LongRunOptions> choices = choices(centered);
+        List<GmmOptions> options = choices.stream().map(estimate).toList();
+        return List.copyOf(ParallelRunner.map(choices.size(), threads,
+                i -> row(model, start, choices.get(i), options.get(i), mainRejects)));
     }
 
     private static SensitivityRow row(MomentModel model, double[] start, LongRunOptions choice, GmmOptions options,
             boolean mainRejects) {
         try {
-            GmmFit fit = GmmEstimator.estimate(model, start, options);
+            GmmFit fit = GmmEstimator.estimate(model, start, options, GmmEstimator.Detail.WITHOUT_HJ_DISTANCE);
             ChiSquareTest test = fit.overidentification();
             List<Double> errors = fit.parameters().stream().map(ParameterEstimate::stdError).toList();
             boolean differs = test.df() > 0 && rejects(test) != mainRejects;

@@ -130,36 +130,80 @@ public final class Stability {
      */
     public static SupWald supWald(MomentModel model, double[] start, List<String> dates, GmmOptions options,
             double trimming, long seed, int draws, IntConsumer progress) {
+        return supWald(model, start, dates, options, trimming, seed, draws, 1, progress);
+    }
+
+    /**
+     * As {@link #supWald(MomentModel, double[], List, GmmOptions, double, long, int, IntConsumer)}, the
+     * candidate dates and the null simulation shared among {@code threads} threads; the result is the
+     * same for every thread count. Each side of a break is fitted on its own rows (from running sums
+     * for a model linear in θ) and only θ̂ and its covariance are computed there, which is all the
+     * Wald statistic uses.
+     */
+    public static SupWald supWald(MomentModel model, double[] start, List<String> dates, GmmOptions options,
+            double trimming, long seed, int draws, int threads, IntConsumer progress) {
         int t = model.observations();
         List<Integer> candidates = candidateBreaks(t, trimming);
         if (candidates.isEmpty()) {
             throw new IllegalArgumentException("no break date leaves " + Math.round(100 * trimming)
                     + "% of the " + t + " observations on each side");
         }
+        Subsamples subsamples = Subsamples.of(model);
+        List<Double> statistics = ParallelRunner.map(candidates.size(), threads,
+                i -> waldAtBreak(subsamples, start, options, candidates.get(i), t),
+                i -> progress.accept(candidates.get(i)));
         List<BreakPoint> sequence = new ArrayList<>();
         List<String> failed = new ArrayList<>();
         double best = Double.NEGATIVE_INFINITY;
         String bestDate = null;
-        for (int index : candidates) {
-            try {
-                ChiSquareTest test = equalityTest(periods(model, start, dates, List.of(index), options));
-                sequence.add(new BreakPoint(dates.get(index), test.statistic()));
-                if (test.statistic() > best) {
-                    best = test.statistic();
-                    bestDate = dates.get(index);
-                }
-            } catch (EstimationException | IllegalArgumentException e) {
-                failed.add(dates.get(index));
+        for (int i = 0; i < candidates.size(); i++) {
+            String date = dates.get(candidates.get(i));
+            double statistic = statistics.get(i);
+            if (Double.isNaN(statistic)) {
+                failed.add(date);
+                continue;
             }
-            progress.accept(index);
+            sequence.add(new BreakPoint(date, statistic));
+            if (statistic > best) {
+                best = statistic;
+                bestDate = date;
+            }
         }
         if (bestDate == null) {
             throw new EstimationException("no candidate break date could be fitted on both sides",
                     List.of(failed.size() + " candidate dates failed"), "use a longer sample or a larger trimming");
         }
         int parameters = model.parameterCount();
-        return new SupWald(best, bestDate, trimming, SupWaldDistribution.simulate(parameters, trimming, seed, draws),
-                sequence, failed);
+        return new SupWald(best, bestDate, trimming,
+                SupWaldDistribution.simulate(parameters, trimming, seed, draws, threads), sequence, failed);
+    }
+
+    /** The Andrews-Fair Wald statistic for a break at {@code index}, or NaN when a side cannot be fitted. */
+    private static double waldAtBreak(Subsamples subsamples, double[] start, GmmOptions options, int index, int t) {
+        try {
+            GmmFit before = GmmEstimator.estimate(subsamples.rows(0, index), start, options,
+                    GmmEstimator.Detail.ESTIMATES);
+            GmmFit after = GmmEstimator.estimate(subsamples.rows(index, t), start, options,
+                    GmmEstimator.Detail.ESTIMATES);
+            return equalityTest(List.of(new PeriodFit("", "", 0, index, before),
+                    new PeriodFit("", "", index, t, after))).statistic();
+        } catch (EstimationException | IllegalArgumentException e) {
+            return Double.NaN;
+        }
+    }
+
+    /**
+     * Cuts a model into consecutive rows: from running sums for a model linear in θ with per-row
+     * Jacobians ({@link LinearWindows}), otherwise through {@link MomentModel#rows(int, int)}.
+     */
+    @FunctionalInterface
+    private interface Subsamples {
+        MomentModel rows(int from, int to);
+
+        static Subsamples of(MomentModel model) {
+            LinearWindows linear = LinearWindows.of(model);
+            return linear != null ? linear::window : model::rows;
+        }
     }
 
     /** Break indices i with i >= ceil(π0 T) and T - i >= ceil(π0 T). */
@@ -178,23 +222,34 @@ public final class Stability {
      */
     public static List<PeriodFit> windows(MomentModel model, double[] start, List<String> dates, GmmOptions options,
             int window, int step, boolean expanding, IntConsumer progress) {
+        return windows(model, start, dates, options, window, step, expanding, 1, progress);
+    }
+
+    /**
+     * As {@link #windows(MomentModel, double[], List, GmmOptions, int, int, boolean, IntConsumer)}, the
+     * windows shared among {@code threads} threads, with the same result for every thread count. A
+     * window's fit has everything but the Hansen-Jagannathan distance, which rolling output does not show.
+     */
+    public static List<PeriodFit> windows(MomentModel model, double[] start, List<String> dates, GmmOptions options,
+            int window, int step, boolean expanding, int threads, IntConsumer progress) {
         int t = model.observations();
         if (window < 2 || window > t || step < 1) {
             throw new IllegalArgumentException("need 2 <= window <= " + t + " and step >= 1; got window " + window
                     + ", step " + step);
         }
-        List<PeriodFit> fits = new ArrayList<>();
-        for (int end = window; end <= t; end += step) {
+        Subsamples subsamples = Subsamples.of(model);
+        int count = (t - window) / step + 1;
+        return ParallelRunner.map(count, threads, i -> {
+            int end = window + i * step;
             int from = expanding ? 0 : end - window;
             GmmFit fit;
             try {
-                fit = GmmEstimator.estimate(model.rows(from, end), start, options);
+                fit = GmmEstimator.estimate(subsamples.rows(from, end), start, options,
+                        GmmEstimator.Detail.WITHOUT_HJ_DISTANCE);
             } catch (EstimationException | IllegalArgumentException e) {
                 fit = null;
             }
-            fits.add(new PeriodFit(dates.get(from), dates.get(end - 1), from, end, fit));
-            progress.accept(end);
-        }
-        return fits;
+            return new PeriodFit(dates.get(from), dates.get(end - 1), from, end, fit);
+        }, i -> progress.accept(window + i * step));
     }
 }

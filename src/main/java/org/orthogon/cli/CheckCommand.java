@@ -7,6 +7,7 @@ import org.orthogon.spec.ModelAssembler;
 import org.orthogon.spec.ModelFile;
 import org.orthogon.spec.PreparedRun;
 import org.orthogon.spec.RunSpec;
+import org.orthogon.spec.StabilitySpec;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Parameters;
@@ -15,6 +16,8 @@ import picocli.CommandLine.Parameters;
 @Command(name = "check", mixinStandardHelpOptions = true,
         description = {"Reads the model file and every data file it names, aligns them and builds the moment "
                 + "conditions without estimating: prints the sample, T, N, K, P, the inputs and every warning.",
+            "Everything `fit` (and, for a [stability] section, `stability`) would refuse about the model file and "
+                + "its data is refused here.",
             "Exits with 2 and one message naming the file, line and fix at the first problem."})
 final class CheckCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "MODEL.toml", description = "the model file")
@@ -33,7 +36,10 @@ final class CheckCommand implements Callable<Integer> {
     public Integer call() {
         RunSpec spec = overrides.apply(ModelFile.read(modelFile));
         PreparedRun prepared = ModelAssembler.prepare(spec);
-        commandSpec.commandLine().getOut().print(CheckReport.render(spec, prepared));
+        // A [stability] section is checked the way `stability MODEL.toml` would run it.
+        StabilitySpec.Plan stability = spec.keyLines().containsKey("stability")
+                ? spec.stability().plan(spec, prepared, true) : null;
+        commandSpec.commandLine().getOut().print(CheckReport.render(spec, prepared, stability));
         commandSpec.commandLine().getOut().flush();
         return Main.EXIT_OK;
     }

@@ -2,9 +2,9 @@ package org.orthogon.cli;
 
 import java.nio.file.Path;
 import java.time.Instant;
-import java.util.Map;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Map;
 import java.util.concurrent.Callable;
 import org.orthogon.analysis.CommonWeightComparison;
 import org.orthogon.analysis.ModelComparison;
@@ -80,9 +80,9 @@ final class CompareCommand implements Callable<Integer> {
         Path folder = null;
         if (output.requested()) {
             folder = ReportFiles.publish(output.target(folderName), output.overwrite,
-                    ComparisonDocument.build(result, sampleLine, common), results,
+                    ComparisonDocument.build(result, sampleLine, common, folderName), results,
                     new Manifest.Run("compare", commandSpec.commandLine().getParseResult().originalArgs(),
-                            Version.current(), started, Map.of()),
+                            Version.current(), started, seeds(runs)),
                     runs.stream().map(FittedRun::spec).toList(), runs.stream().map(run -> run.prepared().inputs()).toList());
         }
         if (!output.quiet) {
@@ -132,6 +132,16 @@ final class CompareCommand implements Callable<Integer> {
                     common.models().stream().map(CommonWeightComparison.ModelAtCommonWeight::discountFactor).toList());
         }
         return new CommonWeightReport(common, r2Tests, bound, notes);
+    }
+
+    /**
+     * Every seed the comparison drew with: each model's Hansen-Jagannathan p-value, and the simulated limits
+     * of the common-weight tests, which use the first model file's HJ seed.
+     */
+    private static Map<String, Long> seeds(List<FittedRun> runs) {
+        Map<String, Long> seeds = new java.util.TreeMap<>(Manifest.seeds(runs.stream().map(FittedRun::fit).toList()));
+        seeds.put("common_weight", runs.get(0).spec().estimation().hjSeed());
+        return seeds;
     }
 
     private static void requireSameAssetsAndSample(FittedRun first, FittedRun other) {

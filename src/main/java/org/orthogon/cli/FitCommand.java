@@ -4,7 +4,6 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.time.Instant;
 import java.util.List;
-import java.util.Map;
 import java.util.concurrent.Callable;
 import org.orthogon.analysis.SensitivityGrid;
 import org.orthogon.gmm.GmmFit;
@@ -45,6 +44,9 @@ final class FitCommand implements Callable<Integer> {
     @Mixin
     ResultOptions output;
 
+    @Mixin
+    ThreadsOption threads;
+
     @Option(names = "--sensitivity", description = "also refit under every kernel and bandwidth choice of the "
             + "sensitivity grid (HC; Bartlett, Parzen, Tukey-Hanning lags 0-12; QS b = 1-13; Andrews and Newey-West "
             + "rules; with and without prewhitening) and flag verdicts that differ at 5%%")
@@ -61,6 +63,7 @@ final class FitCommand implements Callable<Integer> {
         Instant started = Instant.now();
         String folderName = ResultOptions.stem(modelFile);
         output.checkEarly(folderName);
+        int threadCount = threads.count();
         RunSpec spec = overrides.apply(ModelFile.read(modelFile));
         RobustSetOptions robustOptions = robustSets.options(spec.estimation().confidenceLevel());
         FittedRun run = FittedRun.of(spec);
@@ -74,10 +77,12 @@ final class FitCommand implements Callable<Integer> {
                 gmmOptions.longRun(), gmmOptions.smallSample(), gmmOptions.bounds(), robustOptions);
         List<SensitivityGrid.SensitivityRow> grid = sensitivity
                 ? SensitivityGrid.run(prepared.moments(), prepared.startValues(), fit, spec.estimation().centered(),
-                        choice -> FittedRun.options(spec.withEstimation(spec.estimation().withLongRun(choice)), prepared))
+                        choice -> FittedRun.options(spec.withEstimation(spec.estimation().withLongRun(choice)), prepared),
+                        threadCount)
                 : List.of();
         List<FittedRun.RestrictionTest> restrictions = run.restrictionTests();
         ObjectNode results = JsonResults.fit(spec, prepared.sample(), fit);
+        JsonResults.addInputWarnings(results, prepared.warnings());
         JsonResults.addWindmeijer(results, fit, windmeijer);
         if (robust != null) {
             RobustSetsReport.addTo(results, robust);
@@ -96,13 +101,13 @@ final class FitCommand implements Callable<Integer> {
         Path folder = null;
         if (output.requested()) {
             folder = FitReport.writeFolder(output.target(folderName), output.overwrite, results, spec, prepared, fit,
-                    new FitReport.Extras(premia.orElse(null), windmeijer.orElse(null), robust),
+                    premia.orElse(null), restrictions, grid, new FitReport.Extras(windmeijer.orElse(null), robust),
                     new Manifest.Run("fit", commandSpec.commandLine().getParseResult().originalArgs(),
-                            Version.current(), started, Map.of()));
+                            Version.current(), started, Manifest.seeds(fit)));
         }
         if (!output.quiet) {
             PrintWriter out = commandSpec.commandLine().getOut();
-            out.print(ConsoleReport.render(spec, prepared.sample(), fit, prepared.notes(), restrictions,
+            out.print(ConsoleReport.render(spec, prepared, fit, restrictions,
                     windmeijer.map(WindmeijerCorrection.Result::stdErrors).orElse(null)));
             premia.ifPresent(p -> out.print(ConsoleReport.renderRiskPremia(p)));
             if (robust != null) {

@@ -1,20 +1,41 @@
 package org.orthogon.cli;
 
 import java.io.PrintWriter;
+import java.util.LinkedHashMap;
+import java.util.Map;
 import org.orthogon.data.InputException;
+import org.orthogon.data.Suggestions;
 import org.orthogon.gmm.EstimationException;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 
 /**
- * The command line: {@code java -jar orthogon.jar <verb> ...}. Exit codes (DESIGN.md section 4):
- * 0 success, 2 bad input or usage, 3 estimation failed, 1 a bug in Orthogon.
+ * The command line: {@code java -jar orthogon.jar <verb> ...}. Exit codes: 0 success, 2 bad input or
+ * usage, 3 estimation failed, 1 a bug in Orthogon (docs/errors.md).
  */
 @Command(name = "orthogon", mixinStandardHelpOptions = true, versionProvider = Version.class,
-        description = "Tests whether a stochastic discount factor prices a set of test assets, by GMM.",
-        subcommands = {FitCommand.class, CompareCommand.class, TwoPassCommand.class, StabilityCommand.class, CheckCommand.class,
-            SimulateCommand.class, CommandLine.HelpCommand.class})
+        description = "Tests whether a stochastic discount factor prices a set of test assets, by GMM.")
 public final class Main {
+    /**
+     * The verbs, in the order help lists them. Creating a command line makes picocli reflect over every
+     * registered command's options and mixins, which is a good part of a short run's start, so only the
+     * verb named first on the command line is registered; anything else (help, --version, a typo) gets
+     * them all.
+     */
+    private static final Map<String, Class<?>> VERBS = verbs();
+
+    private static Map<String, Class<?>> verbs() {
+        Map<String, Class<?>> verbs = new LinkedHashMap<>();
+        verbs.put("fit", FitCommand.class);
+        verbs.put("compare", CompareCommand.class);
+        verbs.put("two-pass", TwoPassCommand.class);
+        verbs.put("stability", StabilityCommand.class);
+        verbs.put("check", CheckCommand.class);
+        verbs.put("simulate", SimulateCommand.class);
+        verbs.put("help", CommandLine.HelpCommand.class);
+        return verbs;
+    }
+
     public static final int EXIT_OK = 0;
     public static final int EXIT_BUG = 1;
     public static final int EXIT_INPUT = 2;
@@ -29,13 +50,27 @@ public final class Main {
     public static int run(PrintWriter out, PrintWriter err, String... args) {
         boolean debug = java.util.Arrays.asList(args).contains("--debug");
         CommandLine line = new CommandLine(new Main());
+        String first = args.length == 0 ? "" : args[0];
+        if (VERBS.containsKey(first) && !first.equals("help")) {
+            line.addSubcommand(first, VERBS.get(first));
+        } else {
+            VERBS.forEach(line::addSubcommand);
+        }
         line.setOut(out);
         line.setErr(err);
         line.setParameterExceptionHandler((ex, arguments) -> {
             err.println("usage error: " + ex.getMessage());
-            err.println("  fix: see `orthogon " + (ex.getCommandLine().getCommandName()) + " --help`");
+            err.println("  fix: see `" + ex.getCommandLine().getCommandSpec().qualifiedName() + " --help`");
             return EXIT_INPUT;
         });
+        String unknownVerb = unknownVerb(line, args);
+        if (unknownVerb != null) {
+            err.println("error: " + unknownVerb);
+            err.println("  fix: start with one of the verbs " + String.join(", ", verbs(line))
+                    + ", e.g. `orthogon fit MODEL.toml`; see `orthogon --help`");
+            err.flush();
+            return EXIT_INPUT;
+        }
         line.setExecutionExceptionHandler((ex, commandLine, parseResult) -> {
             if (ex instanceof InputException input) {
                 err.println("error: " + input.getMessage());
@@ -61,5 +96,24 @@ public final class Main {
         out.flush();
         err.flush();
         return code;
+    }
+
+    /**
+     * Why the first argument cannot start a run, or null: a word that is neither an option nor a verb
+     * (the program's own name typed twice, a misspelt verb). Checked before parsing, because a --help
+     * further on would otherwise print the top-level help and report success.
+     */
+    private static String unknownVerb(CommandLine line, String[] args) {
+        if (args.length == 0 || args[0].startsWith("-") || line.getSubcommands().containsKey(args[0])) {
+            return null;
+        }
+        if (args[0].equals(line.getCommandName())) {
+            return "\"" + args[0] + "\" is the program's own name, not a verb (is it written twice?)";
+        }
+        return "\"" + args[0] + "\" is not a verb" + Suggestions.didYouMean(args[0], verbs(line));
+    }
+
+    private static java.util.List<String> verbs(CommandLine line) {
+        return line.getSubcommands().keySet().stream().filter(name -> !name.equals("help")).toList();
     }
 }

@@ -7,6 +7,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
 import org.orthogon.data.InputException;
+import org.orthogon.report.OutputFolder;
 
 /** Writing results so that a reader never sees a half-written file. */
 final class OutputFiles {
@@ -27,7 +28,7 @@ final class OutputFiles {
         }
         Path temporary = null;
         try {
-            temporary = Files.createTempFile(folder, ".orthogon-", ".part");
+            temporary = OutputFolder.createHidden(folder, ".orthogon-part-", false);
             Files.writeString(temporary, text, StandardCharsets.UTF_8);
             try {
                 Files.move(temporary, absolute, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);

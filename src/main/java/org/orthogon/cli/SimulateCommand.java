@@ -29,6 +29,9 @@ final class SimulateCommand implements Callable<Integer> {
     @Option(names = "--quiet", description = "print nothing on success")
     boolean quiet;
 
+    @Option(names = "--overwrite", description = "replace demo files that already exist in the output folder")
+    boolean overwrite;
+
     @picocli.CommandLine.Spec
     picocli.CommandLine.Model.CommandSpec commandSpec;
 
@@ -42,6 +45,7 @@ final class SimulateCommand implements Callable<Integer> {
         var sample = LumenSimulator.simulate(economy, LumenSimulator.FIRST_YEAR, count,
                 seed == null ? LumenSimulator.DEMO_SEED : seed);
         Path folder = out == null ? Paths.get("demo-data") : out;
+        refuseToOverwrite(folder);
         List<Path> files = new java.util.ArrayList<>(DemoData.write(economy, sample, folder));
         files.addAll(DemoData.writeExtensions(economy, sample, seed == null ? LumenSimulator.DEMO_SEED : seed, folder));
         if (!quiet) {
@@ -50,5 +54,27 @@ final class SimulateCommand implements Callable<Integer> {
             }
         }
         return Main.EXIT_OK;
+    }
+
+    /** Without --overwrite, existing demo files are never replaced: the folder may hold someone's edited copy. */
+    private void refuseToOverwrite(Path folder) {
+        if (java.nio.file.Files.exists(folder) && !java.nio.file.Files.isDirectory(folder)) {
+            throw InputException.in(folder).problem("this is a file, not a folder", "give a folder with --out");
+        }
+        if (overwrite) {
+            return;
+        }
+        List<String> existing = new java.util.ArrayList<>();
+        for (String name : DemoData.ALL_FILES) {
+            if (java.nio.file.Files.exists(folder.resolve(name))) {
+                existing.add(name);
+            }
+        }
+        if (!existing.isEmpty()) {
+            throw InputException.in(folder).problem("the folder already holds " + existing.size() + " of the demo files ("
+                    + String.join(", ", existing.subList(0, Math.min(3, existing.size())))
+                    + (existing.size() > 3 ? ", ..." : "") + ")", "add --overwrite to replace them, or give another "
+                    + "folder with --out");
+        }
     }
 }

@@ -5,8 +5,6 @@ import java.time.Instant;
 import java.util.Map;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Locale;
-import java.util.Optional;
 import java.util.concurrent.Callable;
 import java.util.function.IntConsumer;
 import me.tongfei.progressbar.ProgressBar;
@@ -14,12 +12,8 @@ import me.tongfei.progressbar.ProgressBarBuilder;
 import me.tongfei.progressbar.ProgressBarStyle;
 import org.orthogon.analysis.Stability;
 import org.orthogon.analysis.SupWaldDistribution;
-import org.orthogon.data.Frequency;
-import org.orthogon.data.InputException;
-import org.orthogon.data.Period;
 import org.orthogon.gmm.EstimationMethod;
 import org.orthogon.gmm.GmmOptions;
-import org.orthogon.gmm.ManyMoments;
 import org.orthogon.gmm.InitialWeight;
 import org.orthogon.report.CheckReport;
 import org.orthogon.report.JsonResults;
@@ -32,6 +26,7 @@ import org.orthogon.spec.ModelAssembler;
 import org.orthogon.spec.ModelFile;
 import org.orthogon.spec.PreparedRun;
 import org.orthogon.spec.RunSpec;
+import org.orthogon.spec.StabilitySpec;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
@@ -78,6 +73,9 @@ final class StabilityCommand implements Callable<Integer> {
     @Mixin
     ResultOptions output;
 
+    @Mixin
+    ThreadsOption threads;
+
     @picocli.CommandLine.Spec
     picocli.CommandLine.Model.CommandSpec commandSpec;
 
@@ -86,10 +84,12 @@ final class StabilityCommand implements Callable<Integer> {
         Instant started = Instant.now();
         String folderName = ResultOptions.stem(modelFile) + "-stability";
         output.checkEarly(folderName);
+        int threadCount = threads.count();
         RunSpec spec = withCommandLine(overrides.apply(ModelFile.read(modelFile)));
-        RunSpec.StabilitySpec choices = spec.stability();
+        StabilitySpec choices = spec.stability();
         PreparedRun prepared = ModelAssembler.prepare(spec);
-        List<Integer> splitIndices = splitIndices(spec, prepared);
+        StabilitySpec.Plan plan = choices.plan(spec, prepared, !noSupWald);
+        List<Integer> splitIndices = plan.splitIndices();
         List<String> warnings = new ArrayList<>();
 
         GmmOptions efficient = FittedRun.options(spec, prepared);
@@ -105,25 +105,23 @@ final class StabilityCommand implements Callable<Integer> {
                     : Stability.periods(prepared.moments(), prepared.startValues(), prepared.dates(), splitIndices, options);
             Stability.SupWald sup = null;
             if (!noSupWald) {
-                int candidates = Stability.candidateBreaks(prepared.moments().observations(), choices.trimming()).size();
-                try (Progress progress = Progress.start("sup-Wald, " + options.method().id(), candidates)) {
+                try (Progress progress = Progress.start("sup-Wald, " + options.method().id(), plan.candidateCount())) {
                     sup = Stability.supWald(prepared.moments(), prepared.startValues(), prepared.dates(), options,
                             choices.trimming(), seed == null ? SupWaldDistribution.DEFAULT_SEED : seed,
-                            SupWaldDistribution.DEFAULT_DRAWS, progress);
+                            SupWaldDistribution.DEFAULT_DRAWS, threadCount, progress);
                 }
             }
             List<Stability.PeriodFit> rolling = List.of();
             if (choices.window().isPresent()) {
-                int windowCount = (prepared.moments().observations() - choices.window().get()) / choices.step() + 1;
-                try (Progress progress = Progress.start("windows, " + options.method().id(), windowCount)) {
+                try (Progress progress = Progress.start("windows, " + options.method().id(), plan.windowCount())) {
                     rolling = Stability.windows(prepared.moments(), prepared.startValues(), prepared.dates(), options,
-                            choices.window().get(), choices.step(), choices.expanding(), progress);
+                            choices.window().get(), choices.step(), choices.expanding(), threadCount, progress);
                 }
             }
             results.add(new StabilityReport.Variant(label, periods,
                     periods.isEmpty() ? null : Stability.equalityTest(periods), sup, rolling));
         }
-        warnings.addAll(sizeWarnings(prepared, splitIndices, choices, spec.estimation().longRunOptions()));
+        plan.warnings().forEach(warning -> warnings.add(warning.text()));
         ObjectNode json = StabilityReport.json(spec, prepared.sample(), results);
         if (output.json != null) {
             OutputFiles.writeAtomically(output.json, JsonResults.text(json));
@@ -134,7 +132,7 @@ final class StabilityCommand implements Callable<Integer> {
             folder = ReportFiles.publish(output.target(folderName), output.overwrite,
                     StabilityDocument.build(spec, prepared.sample(), results, warnings), json,
                     new Manifest.Run("stability", commandSpec.commandLine().getParseResult().originalArgs(),
-                            Version.current(), started, noSupWald ? Map.of() : Map.of("sup_wald", simulationSeed)),
+                            Version.current(), started, seeds(results, noSupWald ? null : simulationSeed)),
                     List.of(spec), List.of(prepared.inputs()));
         }
         if (!output.quiet) {
@@ -147,67 +145,22 @@ final class StabilityCommand implements Callable<Integer> {
         return Main.EXIT_OK;
     }
 
+    /** The sup-Wald simulation's seed (when it ran) and the HJ seed of every period and window fit. */
+    private static Map<String, Long> seeds(List<StabilityReport.Variant> variants, Long supWald) {
+        List<org.orthogon.gmm.GmmFit> fits = new ArrayList<>();
+        for (StabilityReport.Variant variant : variants) {
+            variant.periods().forEach(period -> fits.add(period.fit()));
+            variant.rolling().stream().filter(window -> window.fit() != null).forEach(window -> fits.add(window.fit()));
+        }
+        Map<String, Long> seeds = new java.util.TreeMap<>(Manifest.seeds(fits));
+        if (supWald != null) {
+            seeds.put("sup_wald", supWald);
+        }
+        return seeds;
+    }
+
     private RunSpec withCommandLine(RunSpec spec) {
-        RunSpec.StabilitySpec s = spec.stability();
-        if (trimming != null && !(trimming > 0 && trimming < 0.5)) {
-            throw InputException.general().problem("--trimming " + trimming + " is outside (0, 0.5)",
-                    "give a share such as 0.15");
-        }
-        if (window != null && window < 2 || step != null && step < 1) {
-            throw InputException.general().problem("--window must be at least 2 and --step at least 1",
-                    "e.g. --window 120 --step 12");
-        }
-        return spec.withStability(new RunSpec.StabilitySpec(splits == null ? s.splits() : splits,
-                trimming == null ? s.trimming() : trimming, window == null ? s.window() : Optional.of(window),
-                step == null ? s.step() : step, expanding || s.expanding()));
-    }
-
-    private List<Integer> splitIndices(RunSpec spec, PreparedRun prepared) {
-        Frequency frequency = Period.parse(prepared.dates().get(0)).frequency();
-        List<Integer> indices = new ArrayList<>();
-        for (String text : spec.stability().splits()) {
-            String label = Period.parseStart(text, frequency).label();
-            int index = prepared.dates().indexOf(label);
-            if (index <= 0) {
-                throw InputException.in(spec.modelFile()).line(spec.lineOf("stability", "splits"))
-                        .problem("the split " + text + " is not inside the sample " + prepared.sample().start() + " to "
-                                + prepared.sample().end() + " (a split is the first date of a later period)",
-                                "choose a split after " + prepared.sample().start() + " and up to "
-                                        + prepared.sample().end());
-            }
-            if (!indices.isEmpty() && index <= indices.get(indices.size() - 1)) {
-                throw InputException.in(spec.modelFile()).line(spec.lineOf("stability", "splits"))
-                        .problem("the splits are not in increasing date order: " + spec.stability().splits(),
-                                "list the split dates from earliest to latest");
-            }
-            indices.add(index);
-        }
-        return indices;
-    }
-
-    /**
-     * The many-moments warning ({@link ManyMoments}) for the shortest subsample with the model file's long-run
-     * choices: the subsample fits are where K² v / T is largest.
-     */
-    private static List<String> sizeWarnings(PreparedRun prepared, List<Integer> splits, RunSpec.StabilitySpec choices,
-            org.orthogon.longrun.LongRunOptions longRun) {
-        List<String> warnings = new ArrayList<>();
-        int k = prepared.moments().momentCount();
-        int t = prepared.moments().observations();
-        int smallest = (int) Math.ceil(choices.trimming() * t);
-        List<Integer> bounds = new ArrayList<>(List.of(0));
-        bounds.addAll(splits);
-        bounds.add(t);
-        for (int i = 0; i + 1 < bounds.size(); i++) {
-            smallest = Math.min(smallest, bounds.get(i + 1) - bounds.get(i));
-        }
-        int shortest = smallest;
-        ManyMoments.warning(k, shortest, longRun).ifPresent(w -> warnings.add(
-                String.format(Locale.ROOT, "subsamples as short as %d observations: %s; efficient-weight subsample "
-                        + "fits make the Wald and sup-Wald statistics far larger than their limits suggest "
-                        + "(over-rejection), so read the fixed-weight rows and treat the p-values as rough", shortest,
-                        w)));
-        return warnings;
+        return spec.withStability(spec.stability().withCommandLine(splits, trimming, window, step, expanding));
     }
 
     /** A progress bar on standard error, only when a person is watching a terminal. */

@@ -11,6 +11,7 @@ import org.orthogon.report.JsonResults;
 import org.orthogon.report.Manifest;
 import org.orthogon.report.ReportFiles;
 import org.orthogon.report.TwoPassReport;
+import org.orthogon.spec.LinearFactorSpec;
 import org.orthogon.spec.ModelAssembler;
 import org.orthogon.spec.ModelFile;
 import org.orthogon.spec.PreparedRun;
@@ -79,7 +80,7 @@ final class TwoPassCommand implements Callable<Integer> {
     }
 
     private static void requireLinearFactor(RunSpec spec) {
-        if (spec.model().family() != RunSpec.Family.LINEAR_FACTOR) {
+        if (!(spec.model() instanceof LinearFactorSpec)) {
             throw InputException.in(spec.modelFile()).line(spec.lineOf("model", "family"))
                     .problem("two-pass regressions need a linear factor model, but this file has family = \""
                             + spec.model().family().id() + "\"",

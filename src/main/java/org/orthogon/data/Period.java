@@ -175,11 +175,21 @@ public record Period(Frequency frequency, int ordinal) implements Comparable<Per
 
     /** The canonical text: "1970-01", "1970Q1" or "1970"; {@link #parse} reads it back. */
     public String label() {
+        // String.format would do, but labels are made for every row of every file read
+        String year = fourDigits(year());
         return switch (frequency) {
-            case MONTHLY -> String.format("%04d-%02d", year(), subPeriod());
-            case QUARTERLY -> String.format("%04dQ%d", year(), subPeriod());
-            case ANNUAL -> String.format("%04d", year());
+            case MONTHLY -> year + (subPeriod() < 10 ? "-0" : "-") + subPeriod();
+            case QUARTERLY -> year + "Q" + subPeriod();
+            case ANNUAL -> year;
         };
+    }
+
+    /** The year as %04d prints it: at least four characters, zeros after a minus sign. */
+    private static String fourDigits(int year) {
+        String digits = Integer.toString(Math.abs(year));
+        int width = year < 0 ? 3 : 4;
+        String padded = digits.length() >= width ? digits : "000".substring(0, width - digits.length()) + digits;
+        return year < 0 ? "-" + padded : padded;
     }
 
     @Override

@@ -39,6 +39,9 @@ public final class DemoData {
      */
     public static final List<String> EXTENSION_FILES = List.of(WEALTH, MACRO_LEVELS, DEFLATOR_SERIES,
             PORTFOLIO_SECTIONS, INSTRUMENTS);
+    /** Every file `simulate` writes: the core files and the extensions. */
+    public static final List<String> ALL_FILES = java.util.stream.Stream.concat(FILES.stream(), EXTENSION_FILES.stream())
+            .toList();
     private static final double ROUNDING = 1e6;
 
     private DemoData() {

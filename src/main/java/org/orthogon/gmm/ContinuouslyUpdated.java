@@ -26,7 +26,7 @@ import org.orthogon.moments.MomentModel;
  * The continuously-updated GMM estimator of Hansen, Heaton and Yaron (1996, "Finite-sample properties of
  * some alternative GMM estimators", Journal of Business and Economic Statistics 14):
  * θ̂ = argmin Q(θ), Q(θ) = T g_T(θ)' S(θ)^{-1} g_T(θ), with S(θ) re-estimated at every θ by the run's
- * long-run options (an automatic bandwidth is re-selected at every evaluation, DESIGN.md section 3).
+ * long-run options (an automatic bandwidth is re-selected at every evaluation; docs/methods.md).
  *
  * <p>Q has no convenient analytic gradient once S moves with θ, so it is minimised derivative-free in
  * standardised coordinates u = (θ - θ̂2)/se(θ̂2): by BOBYQA (Powell 2009, "The BOBYQA algorithm for bound
@@ -67,25 +67,50 @@ final class ContinuouslyUpdated {
      * or the moments are not finite.
      */
     static double objective(MomentModel model, LongRunOptions options, double[] theta) {
-        DMatrixRMaj f = model.contributions(theta);
-        for (double v : f.data) {
-            if (!Double.isFinite(v)) {
+        return new Workspace(model, options).objective(theta);
+    }
+
+    /**
+     * What one search evaluates Q with, thousands of times: the T x K contributions written in place,
+     * S^{-1} g and the Cholesky solver are kept between evaluations instead of allocated anew (the
+     * long-run covariance itself is formed fresh each time). One search, one thread.
+     */
+    static final class Workspace {
+        private final MomentModel model;
+        private final LongRunOptions options;
+        private final DMatrixRMaj f = new DMatrixRMaj(1, 1);
+        private final DMatrixRMaj sInvG;
+        private final LinearSolverDense<DMatrixRMaj> solver;
+
+        Workspace(MomentModel model, LongRunOptions options) {
+            this.model = model;
+            this.options = options;
+            int k = model.momentCount();
+            this.sInvG = new DMatrixRMaj(k, 1);
+            this.solver = LinearSolverFactory_DDRM.chol(k);
+        }
+
+        double objective(double[] theta) {
+            model.contributions(theta, f);
+            double[] data = f.data;
+            int n = f.getNumElements();
+            for (int i = 0; i < n; i++) {
+                if (!Double.isFinite(data[i])) {
+                    return Double.POSITIVE_INFINITY;
+                }
+            }
+            DMatrixRMaj g = org.orthogon.moments.MomentAlgebra.columnMeans(f);
+            DMatrixRMaj s = LongRunCovariance.estimate(f, options).covariance();
+            if (!solver.setA(s)) {
                 return Double.POSITIVE_INFINITY;
             }
+            solver.solve(g, sInvG);
+            double q = 0.0;
+            for (int i = 0; i < g.numRows; i++) {
+                q += g.data[i] * sInvG.data[i];
+            }
+            return model.observations() * q;
         }
-        DMatrixRMaj g = org.orthogon.moments.MomentAlgebra.columnMeans(f);
-        DMatrixRMaj s = LongRunCovariance.estimate(f, options).covariance();
-        LinearSolverDense<DMatrixRMaj> solver = LinearSolverFactory_DDRM.chol(s.numRows);
-        if (!solver.setA(s)) {
-            return Double.POSITIVE_INFINITY;
-        }
-        DMatrixRMaj sInvG = new DMatrixRMaj(g.numRows, 1);
-        solver.solve(g, sInvG);
-        double q = 0.0;
-        for (int i = 0; i < g.numRows; i++) {
-            q += g.data[i] * sInvG.data[i];
-        }
-        return model.observations() * q;
     }
 
     /**
@@ -107,6 +132,7 @@ final class ContinuouslyUpdated {
         }
         ParameterBounds box = new ParameterBounds(lowerU, upperU);
         int[] evaluations = {0};
+        Workspace workspace = new Workspace(model, options);
         ToDoubleFunction<double[]> q = u -> {
             evaluations[0]++;
             double[] inside = box.clamp(u);
@@ -115,7 +141,7 @@ final class ContinuouslyUpdated {
                 double d = u[j] - inside[j];
                 distance += d * d;
             }
-            return objective(model, options, theta(start, scales, inside)) + OUT_OF_BOUNDS_PENALTY * distance;
+            return workspace.objective(theta(start, scales, inside)) + OUT_OF_BOUNDS_PENALTY * distance;
         };
 
         List<String> notes = new ArrayList<>();
@@ -190,7 +216,7 @@ final class ContinuouslyUpdated {
         }
         double[] theta = theta(start, scales, box.clamp(best));
         List<String> atBounds = bounds.atBounds(theta, model.parameterNames());
-        return new Result(theta, objective(model, options, theta), polished[0], evaluations[0], notes, atBounds);
+        return new Result(theta, workspace.objective(theta), polished[0], evaluations[0], notes, atBounds);
     }
 
     private static double[] theta(double[] start, double[] scales, double[] u) {

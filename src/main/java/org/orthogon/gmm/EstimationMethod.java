@@ -3,7 +3,7 @@ package org.orthogon.gmm;
 import java.util.Arrays;
 import java.util.stream.Collectors;
 
-/** How the weighting matrix is chosen (DESIGN.md section 3). */
+/** How the weighting matrix is chosen (Hansen 1982; Hansen, Heaton and Yaron 1996). */
 public enum EstimationMethod {
     /** A fixed weight (identity, second-moment or a user diagonal): consistent, not efficient; sandwich covariance. */
     ONE_STEP("one-step"),

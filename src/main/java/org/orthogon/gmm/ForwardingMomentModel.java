@@ -4,7 +4,11 @@ import java.util.List;
 import org.ejml.data.DMatrixRMaj;
 import org.orthogon.moments.MomentModel;
 
-/** A moment model that passes every call to another; views override what they change. */
+/**
+ * A moment model that passes every call to another; views override what they change. The in-place
+ * {@link MomentModel#contributions(double[], DMatrixRMaj)} and the per-row Jacobians are not passed
+ * on, so a view that changes θ stays right through the interface's defaults.
+ */
 abstract class ForwardingMomentModel implements MomentModel {
     protected final MomentModel base;
 
@@ -36,6 +40,7 @@ abstract class ForwardingMomentModel implements MomentModel {
     public DMatrixRMaj meanJacobian(double[] theta) {
         return base.meanJacobian(theta);
     }
+
 
     @Override
     public boolean isLinear() {

@@ -13,7 +13,7 @@ import org.orthogon.moments.MomentModel;
 
 /**
  * GMM estimation (Hansen 1982, "Large sample properties of generalized method of moments estimators",
- * Econometrica 50) following DESIGN.md section 3, with W0 the initial weight of the options (identity,
+ * Econometrica 50) as docs/methods.md states it, with W0 the initial weight of the options (identity,
  * the inverse second-moment matrix G^{-1} of the payoffs, or a user diagonal):
  * <ul>
  *   <li>one-step: θ̂ = argmin T g' W0 g; covariance by the sandwich
@@ -45,12 +45,41 @@ public final class GmmEstimator {
     }
 
     /**
+     * How much of a fit to compute. Repeated subsample fits pay only for what they show: a sup-Wald
+     * statistic needs θ̂ and its covariance, a rolling window its tests too, and neither needs the
+     * Hansen-Jagannathan distance, which costs another minimisation and another S.
+     */
+    public enum Detail {
+        /** Everything of {@link GmmFit}. */
+        FULL,
+        /** Everything but the Hansen-Jagannathan distance ({@link GmmFit#hjDistance()} is null, without a warning). */
+        WITHOUT_HJ_DISTANCE,
+        /**
+         * θ̂, its covariance and, for the efficient estimators, the J test; the pricing errors are empty,
+         * the joint test and one-step's overidentification test are NaN with 0 degrees of freedom, there
+         * is no Hansen-Jagannathan distance, and the condition numbers of the diagnostics are NaN.
+         */
+        ESTIMATES
+    }
+
+    /**
      * Estimates θ and everything reported with it.
      *
      * @throws EstimationException when the solver fails, the parameters are not identified or S is
      *                             singular
      */
     public static GmmFit estimate(MomentModel model, double[] start, GmmOptions options) {
+        return estimate(model, start, options, Detail.FULL);
+    }
+
+    /**
+     * Estimates θ and as much of the rest as {@code detail} asks for; the numbers computed are the
+     * same at every level of detail.
+     *
+     * @throws EstimationException when the solver fails, the parameters are not identified or S is
+     *                             singular
+     */
+    public static GmmFit estimate(MomentModel model, double[] start, GmmOptions options, Detail detail) {
         int k = model.momentCount();
         int p = model.parameterCount();
         int t = model.observations();
@@ -68,7 +97,8 @@ public final class GmmEstimator {
                     "use a longer sample, fewer test assets or fewer instruments");
         }
         try {
-            GmmFit fit = estimateChecked(model, start, options);
+            GmmFit fit = estimateChecked(model.isLinear() ? new LinearModelView(model) : model, start, options,
+                    detail);
             return options.smallSample() ? SmallSampleCorrection.apply(fit) : fit;
         } catch (Matrices.SingularMatrixException e) {
             throw refusal(e, model);
@@ -86,7 +116,7 @@ public final class GmmEstimator {
                                 + "drop one of them or use fewer instruments");
     }
 
-    private static GmmFit estimateChecked(MomentModel model, double[] start, GmmOptions options) {
+    private static GmmFit estimateChecked(MomentModel model, double[] start, GmmOptions options, Detail detail) {
         int k = model.momentCount();
         int p = model.parameterCount();
         int t = model.observations();
@@ -182,27 +212,37 @@ public final class GmmEstimator {
         LongRunEstimate finalS = longRun(model, theta, longRunOptions);
         warnings.addAll(finalS.warnings());
         DMatrixRMaj s = finalS.covariance();
-        double rcondS = Matrices.scaledReciprocalCondition(s);
-        if (rcondS < NEAR_SINGULAR_RCOND) {
-            warnings.add(String.format("S is nearly singular (condition number %.2e after scaling to a unit "
-                    + "diagonal): standard errors and tests are unreliable; drop redundant assets or instruments, "
-                    + "or use a fixed (one-step) weight", 1.0 / rcondS));
+        boolean complete = detail != Detail.ESTIMATES;
+        double rcondS = Double.NaN;
+        if (complete) {
+            rcondS = Matrices.scaledReciprocalCondition(s);
+            if (rcondS < NEAR_SINGULAR_RCOND) {
+                warnings.add(String.format("S is nearly singular (condition number %.2e after scaling to a unit "
+                        + "diagonal): standard errors and tests are unreliable; drop redundant assets or instruments, "
+                        + "or use a fixed (one-step) weight", 1.0 / rcondS));
+            }
         }
         ManyMoments.warning(k, t, finalS.kernel(), finalS.bandwidth()).ifPresent(warnings::add);
 
         DMatrixRMaj jacobian = model.meanJacobian(theta);
         DMatrixRMaj covariance;
-        DMatrixRMaj errorCovariance;
-        double rcondDwd;
+        DMatrixRMaj errorCovariance = null;
+        double rcondDwd = Double.NaN;
         if (k == p) {
-            rcondDwd = Matrices.equilibratedReciprocalCondition(jacobian);
+            if (complete) {
+                rcondDwd = Matrices.equilibratedReciprocalCondition(jacobian);
+            }
             covariance = exactlyIdentifiedCovariance(jacobian, s, t);
             errorCovariance = new DMatrixRMaj(k, k);
         } else {
-            rcondDwd = Matrices.scaledReciprocalCondition(Matrices.quadraticForm(jacobian, weight));
+            if (complete) {
+                rcondDwd = Matrices.scaledReciprocalCondition(Matrices.quadraticForm(jacobian, weight));
+            }
             covariance = options.method().isEfficient() ? Inference.efficientCovariance(jacobian, s, t)
                     : Inference.sandwichCovariance(jacobian, weight, s, t);
-            errorCovariance = Inference.pricingErrorCovariance(jacobian, weight, s, t);
+            if (complete) {
+                errorCovariance = Inference.pricingErrorCovariance(jacobian, weight, s, t);
+            }
         }
         if (rcondDwd < 1e-10) {
             warnings.add(String.format("D'WD is nearly singular (condition number %.2e after scaling): some "
@@ -219,15 +259,20 @@ public final class GmmEstimator {
         }
 
         DMatrixRMaj g = model.meanMoments(theta);
-        List<PricingError> errors = new ArrayList<>(k);
-        for (int i = 0; i < k; i++) {
-            double se = Math.sqrt(Math.max(errorCovariance.get(i, i), 0.0));
-            errors.add(new PricingError(model.momentNames().get(i), g.get(i), se, g.get(i) / se));
-        }
         int df = k - p;
-        ChiSquareTest joint = df == 0
-                ? new ChiSquareTest("pricing-errors-joint", 0.0, 0, Double.NaN)
-                : ChiSquareTest.of("pricing-errors-joint", Inference.jointPricingStatistic(g, errorCovariance, df), df);
+        List<PricingError> errors = new ArrayList<>(k);
+        ChiSquareTest joint;
+        if (complete) {
+            for (int i = 0; i < k; i++) {
+                double se = Math.sqrt(Math.max(errorCovariance.get(i, i), 0.0));
+                errors.add(new PricingError(model.momentNames().get(i), g.get(i), se, g.get(i) / se));
+            }
+            joint = df == 0 ? new ChiSquareTest("pricing-errors-joint", 0.0, 0, Double.NaN)
+                    : ChiSquareTest.of("pricing-errors-joint",
+                            Inference.jointPricingStatistic(g, errorCovariance, df, jacobian, weight), df);
+        } else {
+            joint = new ChiSquareTest("pricing-errors-joint", Double.NaN, 0, Double.NaN);
+        }
         double objective = options.method() == EstimationMethod.CONTINUOUSLY_UPDATED ? last.objective()
                 : Inference.quadraticStatistic(g, weight, t);
         ChiSquareTest overidentification;
@@ -242,10 +287,12 @@ public final class GmmEstimator {
         }
 
         HjDistance hj = null;
-        try {
-            hj = distance(model, theta, longRunOptions, bounds, options.hjSeed(), options.hjDraws());
-        } catch (EstimationException e) {
-            warnings.add("the Hansen-Jagannathan distance is not reported: " + e.getMessage());
+        if (detail == Detail.FULL) {
+            try {
+                hj = distance(model, theta, longRunOptions, bounds, options.hjSeed(), options.hjDraws());
+            } catch (EstimationException e) {
+                warnings.add("the Hansen-Jagannathan distance is not reported: " + e.getMessage());
+            }
         }
         GmmDiagnostics diagnostics = new GmmDiagnostics(1.0 / rcondS, 1.0 / rcondDwd, k, t, p, solverIterations,
                 weightUpdates, converged && last.converged(), atBounds);
@@ -283,8 +330,14 @@ public final class GmmEstimator {
 
     /** S at θ: the long-run covariance of the contributions f_t(θ). */
     public static LongRunEstimate longRun(MomentModel model, double[] theta, LongRunOptions options) {
-        return LongRunCovariance.estimate(model.contributions(theta), options);
+        // the contributions are written into this thread's work matrix: nothing keeps them past the estimate
+        DMatrixRMaj f = CONTRIBUTIONS.get();
+        model.contributions(theta, f);
+        return LongRunCovariance.estimate(f, options);
     }
+
+    /** Each thread's matrix for the contributions of {@link #longRun}, reused from one S to the next. */
+    private static final ThreadLocal<DMatrixRMaj> CONTRIBUTIONS = ThreadLocal.withInitial(() -> new DMatrixRMaj(1, 1));
 
     /** S(θ)^{-1}; K = P needs no weight (the estimate solves g = 0), so the identity stands in when S is singular. */
     private static DMatrixRMaj efficientWeight(MomentModel model, double[] theta, LongRunOptions options,

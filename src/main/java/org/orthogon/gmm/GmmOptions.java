@@ -4,7 +4,7 @@ import java.util.Objects;
 import org.orthogon.longrun.LongRunOptions;
 
 /**
- * Estimation choices of one GMM run (DESIGN.md section 3).
+ * Estimation choices of one GMM run (docs/methods.md).
  *
  * @param method             one-step, two-step, iterated or continuously-updated
  * @param longRun            how S, the long-run covariance of the moments, is estimated

@@ -6,6 +6,7 @@ import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.CommonOps_DDRM;
 import org.ejml.dense.row.factory.DecompositionFactory_DDRM;
 import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
+import org.orthogon.longrun.CrossProducts;
 import org.orthogon.longrun.LongRunOptions;
 import org.orthogon.moments.MomentModel;
 
@@ -26,11 +27,13 @@ public final class HansenJagannathan {
     }
 
     /**
-     * δ, its simulated p-value and the weights λ_j at the minimiser over the bounds.
+     * δ, its p-value and the weights λ_j at the minimiser over the bounds. The p-value inverts the
+     * weighted chi-square limit numerically (Imhof 1961, {@link WeightedChiSquare}); the simulation with
+     * {@code seed} and {@code draws} is the fallback where the inversion declines, and a check in the tests.
      *
      * @param start      where a non-linear search starts (the main estimate)
      * @param longRun    how S is estimated at the HJ minimiser
-     * @param seed,draws the simulation of the weighted chi-square limit
+     * @param seed,draws the simulation of the weighted chi-square limit, when it is used
      * @throws EstimationException when the minimisation over θ does not converge or G, S or D'G^{-1}D
      *                             is singular
      */
@@ -57,12 +60,26 @@ public final class HansenJagannathan {
         DMatrixRMaj g = model.meanMoments(theta);
         double squared = Math.max(Matrices.quadraticValue(g, gInverse), 0.0);
         if (k == p) {
-            return new HjDistance(Math.sqrt(squared), Double.NaN, seed, draws, new double[0]);
+            return new HjDistance(Math.sqrt(squared), Double.NaN, seed, draws, new double[0],
+                    HjDistance.PValueMethod.IMHOF);
         }
         DMatrixRMaj s = GmmEstimator.longRun(model, theta, longRun).covariance();
         double[] weights = limitWeights(model.meanJacobian(theta), gInverse, s, k - p);
-        double pValue = weightedChiSquareUpperTail(model.observations() * squared, weights, seed, draws);
-        return new HjDistance(Math.sqrt(squared), pValue, seed, draws, weights);
+        return withPValue(Math.sqrt(squared), model.observations() * squared, weights, seed, draws);
+    }
+
+    /**
+     * The distance with the p-value of its statistic T δ² under the weighted chi-square limit: by Imhof's
+     * inversion ({@link WeightedChiSquare}), or by simulation with the given seed where the inversion
+     * declines; the method used is recorded.
+     */
+    static HjDistance withPValue(double value, double statistic, double[] weights, long seed, int draws) {
+        java.util.OptionalDouble exact = WeightedChiSquare.upperTail(statistic, weights);
+        if (exact.isPresent()) {
+            return new HjDistance(value, exact.getAsDouble(), seed, draws, weights, HjDistance.PValueMethod.IMHOF);
+        }
+        return new HjDistance(value, weightedChiSquareUpperTail(statistic, weights, seed, draws), seed, draws, weights,
+                HjDistance.PValueMethod.SIMULATED);
     }
 
     /**
@@ -81,7 +98,12 @@ public final class HansenJagannathan {
         DMatrixRMaj middle = new DMatrixRMaj(k, k);
         CommonOps_DDRM.subtract(gInverse, m, middle);
         DMatrixRMaj lower = Matrices.choleskyLower(s, "S at the Hansen-Jagannathan estimate");
-        DMatrixRMaj a = Matrices.quadraticForm(lower, middle);
+        // A = L'(ML), symmetric: only its upper triangle is summed
+        DMatrixRMaj ml = new DMatrixRMaj(k, k);
+        CommonOps_DDRM.mult(middle, lower, ml);
+        DMatrixRMaj a = new DMatrixRMaj(k, k);
+        CrossProducts.addUpper(lower.data, ml.data, k, k, a.data);
+        CrossProducts.symmetricFromUpper(a.data, k, 1.0);
         EigenDecomposition_F64<DMatrixRMaj> eig = DecompositionFactory_DDRM.eig(k, false, true);
         if (!eig.decompose(a)) {
             throw new IllegalStateException("eigen-decomposition of the Hansen-Jagannathan limit failed");

@@ -37,6 +37,18 @@ public final class IdentificationDiagnostics {
     private IdentificationDiagnostics() {
     }
 
+    /**
+     * β of the utility families in (0, 1.1): a quarterly or monthly β above 1.1 would value the future far above
+     * the present.
+     */
+    public static final Range DISCOUNT_FACTOR = new Range("beta", 0.0, true, 1.1, true, "the subjective discount factor");
+    /** γ ≥ 0: a negative relative risk aversion is a risk lover. */
+    public static final Range RISK_AVERSION = new Range("gamma", 0.0, false, Double.POSITIVE_INFINITY, true,
+            "relative risk aversion");
+    /** ψ &gt; 0 for recursive utility (Epstein and Zin 1989). */
+    public static final Range ELASTICITY_OF_SUBSTITUTION = new Range("psi", 0.0, true, Double.POSITIVE_INFINITY, true,
+            "the elasticity of intertemporal substitution");
+
     /** A parameter's economic range: lower and upper ends, each open or closed, and what the parameter is. */
     public record Range(String parameter, double lower, boolean lowerOpen, double upper, boolean upperOpen,
             String meaning) {

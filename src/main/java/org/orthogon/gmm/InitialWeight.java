@@ -7,7 +7,7 @@ import org.orthogon.moments.MomentModel;
 
 /**
  * The fixed weight of a one-step estimate, and the first-step weight of the two-step, iterated and
- * continuously-updated estimators (DESIGN.md section 3).
+ * continuously-updated estimators (docs/methods.md).
  */
 public sealed interface InitialWeight {
 
@@ -113,10 +113,6 @@ public sealed interface InitialWeight {
 
     /** G = (1/T) Σ_t x_t x_t' of {@link MomentModel#payoffs()} (Hansen and Jagannathan 1997). */
     static DMatrixRMaj secondMoments(MomentModel model) {
-        DMatrixRMaj x = model.payoffs();
-        DMatrixRMaj g = new DMatrixRMaj(x.numCols, x.numCols);
-        CommonOps_DDRM.multTransA(x, x, g);
-        CommonOps_DDRM.divide(g, x.numRows);
-        return Matrices.symmetrize(g);
+        return org.orthogon.longrun.LongRunCovariance.secondMoments(model.payoffs());
     }
 }

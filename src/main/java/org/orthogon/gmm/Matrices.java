@@ -5,6 +5,7 @@ import org.ejml.dense.row.CommonOps_DDRM;
 import org.ejml.dense.row.factory.DecompositionFactory_DDRM;
 import org.ejml.dense.row.factory.LinearSolverFactory_DDRM;
 import org.ejml.interfaces.decomposition.CholeskyDecomposition_F64;
+import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
 import org.ejml.interfaces.decomposition.SingularValueDecomposition_F64;
 import org.ejml.interfaces.linsol.LinearSolverDense;
 
@@ -77,15 +78,41 @@ final class Matrices {
      */
     static double scaledReciprocalCondition(DMatrixRMaj a) {
         double[] scale = unitDiagonalScale(a);
-        return scale == null ? 0.0 : reciprocalCondition(scaled(a, scale));
+        return scale == null ? 0.0 : symmetricReciprocalCondition(scaled(a, scale));
+    }
+
+    /**
+     * σ_min/σ_max of a symmetric matrix from its eigenvalues (|λ| are its singular values), about half
+     * the work of a singular value decomposition.
+     */
+    static double symmetricReciprocalCondition(DMatrixRMaj a) {
+        EigenDecomposition_F64<DMatrixRMaj> eig = DecompositionFactory_DDRM.eig(a.numRows, false, true);
+        if (!eig.decompose(a.copy())) {
+            return 0.0;
+        }
+        double max = 0.0;
+        double min = Double.POSITIVE_INFINITY;
+        for (int i = 0; i < a.numRows; i++) {
+            double value = Math.abs(eig.getEigenvalue(i).real);
+            max = Math.max(max, value);
+            min = Math.min(min, value);
+        }
+        return max == 0.0 ? 0.0 : min / max;
     }
 
     /**
      * Inverse of a symmetric positive-definite matrix by Cholesky of its unit-diagonal scaling
      * C = Λ^{-1/2} A Λ^{-1/2}, A^{-1} = Λ^{-1/2} C^{-1} Λ^{-1/2}; refuses a numerically singular one
-     * with a message naming it, because a silently regularised inverse would fake precision. The test
-     * uses the scaled condition number so that rescaling a moment by a constant never changes the
-     * verdict.
+     * (scaled reciprocal condition number at most {@link #SINGULAR_RCOND}) with a message naming it,
+     * because a silently regularised inverse would fake precision. The test uses the scaled condition
+     * number so that rescaling a moment by a constant never changes the verdict.
+     *
+     * <p>The condition number is needed only near the threshold, so it is first bounded from the
+     * inverse itself: λ_max(C) ≤ ||C||_∞ and 1/λ_min(C) = λ_max(C^{-1}) ≤ trace(C^{-1}), hence
+     * rcond(C) ≥ 1/(||C||_∞ trace(C^{-1})) (Golub and Van Loan 2013, "Matrix Computations", sections
+     * 2.3 and 8.1). When that bound clears the threshold by a factor 100, which leaves room for the
+     * rounding in C^{-1}, the matrix is accepted without an eigen-decomposition; otherwise the exact
+     * value decides, as it always did.
      */
     static DMatrixRMaj invertSymmetric(DMatrixRMaj a, String what) {
         double[] scale = unitDiagonalScale(a);
@@ -93,17 +120,51 @@ final class Matrices {
             throw new SingularMatrixException(what + " (a diagonal entry is not positive)", 0.0);
         }
         DMatrixRMaj c = scaled(a, scale);
-        double rcond = reciprocalCondition(c);
-        if (!(rcond > SINGULAR_RCOND)) {
-            throw new SingularMatrixException(what, rcond);
-        }
         LinearSolverDense<DMatrixRMaj> solver = LinearSolverFactory_DDRM.symmPosDef(a.numRows);
         DMatrixRMaj inverse = new DMatrixRMaj(a.numRows, a.numRows);
-        if (!solver.setA(c)) {
-            throw new SingularMatrixException(what + " (not positive definite)", rcond);
+        boolean factored = solver.setA(c.copy());
+        if (factored) {
+            solver.invert(inverse);
         }
-        solver.invert(inverse);
-        return symmetrize(scaled(inverse, scale));
+        if (!factored || !(conditionLowerBound(c, inverse) > 100.0 * SINGULAR_RCOND)) {
+            double rcond = symmetricReciprocalCondition(c);
+            if (!(rcond > SINGULAR_RCOND)) {
+                throw new SingularMatrixException(what, rcond);
+            }
+            if (!factored) {
+                throw new SingularMatrixException(what + " (not positive definite)", rcond);
+            }
+        }
+        scaleInPlace(inverse, scale);
+        return symmetrize(inverse);
+    }
+
+    /** diag(scale) A diag(scale), in place. */
+    private static void scaleInPlace(DMatrixRMaj a, double[] scale) {
+        int n = a.numCols;
+        double[] data = a.data;
+        for (int i = 0; i < a.numRows; i++) {
+            for (int j = 0; j < n; j++) {
+                data[i * n + j] = scale[i] * data[i * n + j] * scale[j];
+            }
+        }
+    }
+
+    /** 1/(||C||_∞ trace(C^{-1})), a lower bound on λ_min/λ_max of a symmetric positive-definite C; 0 if not finite. */
+    private static double conditionLowerBound(DMatrixRMaj c, DMatrixRMaj inverse) {
+        int n = c.numRows;
+        double rowSum = 0.0;
+        double trace = 0.0;
+        for (int i = 0; i < n; i++) {
+            double sum = 0.0;
+            for (int j = 0; j < n; j++) {
+                sum += Math.abs(c.unsafe_get(i, j));
+            }
+            rowSum = Math.max(rowSum, sum);
+            trace += inverse.unsafe_get(i, i);
+        }
+        double bound = 1.0 / (rowSum * trace);
+        return Double.isFinite(bound) && trace > 0.0 ? bound : 0.0;
     }
 
     /** 1/sqrt(a_ii) for each i, or null when a diagonal entry is not a positive finite number. */

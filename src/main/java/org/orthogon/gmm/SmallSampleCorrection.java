@@ -8,7 +8,7 @@ import org.orthogon.longrun.LongRunCovariance;
 import org.orthogon.longrun.LongRunEstimate;
 
 /**
- * The optional small-sample factor c = T/(T - P) applied to S (DESIGN.md section 3; off by default).
+ * The optional small-sample factor c = T/(T - P) applied to S (off by default; docs/methods.md).
  *
  * <p>Scaling S by a constant leaves every estimator's minimiser unchanged (W = (cS)^{-1} is a multiple
  * of S^{-1}; the continuously-updated objective is scaled as a whole), so the correction acts on what
@@ -54,8 +54,7 @@ public final class SmallSampleCorrection {
                 weights[i] *= c;
             }
             double statistic = t * hj.value() * hj.value();
-            hj = new HjDistance(hj.value(), HansenJagannathan.weightedChiSquareUpperTail(statistic, weights, hj.seed(),
-                    hj.draws()), hj.seed(), hj.draws(), weights);
+            hj = HansenJagannathan.withPValue(hj.value(), statistic, weights, hj.seed(), hj.draws());
         }
         List<String> warnings = new ArrayList<>(fit.warnings());
         warnings.add(String.format(java.util.Locale.ROOT, "S multiplied by the small-sample factor T/(T-P) = %.6f", c));

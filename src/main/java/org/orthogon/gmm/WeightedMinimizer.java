@@ -205,8 +205,17 @@ public final class WeightedMinimizer {
      * A = D (B = I) for K = P and A = D'WD, B = D'W otherwise (exact Newton steps on an affine g).
      */
     private static void refine(MomentModel model, DMatrixRMaj jacobian, DMatrixRMaj dtw, double[] theta) {
+        refine(model, jacobian, dtw, null, theta);
+    }
+
+    /**
+     * As above; for K > P the Newton matrix D'WD was already inverted by the caller ({@code inverse}),
+     * so each step is a product with that inverse instead of a new factorisation.
+     */
+    private static void refine(MomentModel model, DMatrixRMaj jacobian, DMatrixRMaj dtw, DMatrixRMaj inverse,
+            double[] theta) {
         DMatrixRMaj normal = null;
-        if (dtw != null) {
+        if (dtw != null && inverse == null) {
             normal = new DMatrixRMaj(theta.length, theta.length);
             CommonOps_DDRM.mult(dtw, jacobian, normal);
         }
@@ -218,7 +227,12 @@ public final class WeightedMinimizer {
             } else {
                 DMatrixRMaj rhs = new DMatrixRMaj(theta.length, 1);
                 CommonOps_DDRM.mult(dtw, g, rhs);
-                correction = Matrices.solveSquare(normal, rhs, "D'WD");
+                if (inverse != null) {
+                    correction = new DMatrixRMaj(theta.length, 1);
+                    CommonOps_DDRM.mult(inverse, rhs, correction);
+                } else {
+                    correction = Matrices.solveSquare(normal, rhs, "D'WD");
+                }
             }
             for (int j = 0; j < theta.length; j++) {
                 theta[j] -= correction.data[j];
@@ -242,7 +256,7 @@ public final class WeightedMinimizer {
         DMatrixRMaj theta = new DMatrixRMaj(p, 1);
         CommonOps_DDRM.mult(-1.0, inverse, rhs, theta);
         double[] estimate = theta.data.clone();
-        refine(model, jacobian, dtw, estimate);
+        refine(model, jacobian, dtw, inverse, estimate);
         return new Minimum(estimate, objective(model, weight, estimate), true, 0, 1, List.of(), List.of());
     }
 

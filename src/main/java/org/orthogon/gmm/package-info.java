@@ -1,5 +1,5 @@
 /**
- * GMM estimation and inference for asset-pricing moment conditions (DESIGN.md section 3).
+ * GMM estimation and inference for asset-pricing moment conditions (Hansen 1982; docs/methods.md).
  *
  * <p>{@link org.orthogon.gmm.GmmEstimator#estimate} runs one-step (fixed weight: identity, inverse
  * second-moment matrix, user diagonal), two-step, iterated or continuously-updated GMM on a

@@ -2,7 +2,6 @@ package org.orthogon.longrun;
 
 import java.util.Arrays;
 import org.ejml.data.DMatrixRMaj;
-import org.ejml.dense.row.CommonOps_DDRM;
 import org.jtransforms.fft.DoubleFFT_1D;
 
 /**
@@ -11,13 +10,17 @@ import org.jtransforms.fft.DoubleFFT_1D;
  * columns' Fourier transforms) kept, so that several kernels and bandwidths can be applied to the
  * same series without recomputing it. The quadratic spectral kernel weights all T - 1 lags; its
  * sum is formed in the Toeplitz form U'WU/T by FFT, never lag by lag (see
- * {@link #longRun(Kernel, double, DMatrixRMaj)}).
+ * {@link #longRun(Kernel, double, DMatrixRMaj)}); Γ_0 and whole-number Bartlett bandwidths are symmetric
+ * rank-k products of the series or of its moving sums.
  *
- * <p>The divisor is T, not T - j (DESIGN.md section 3). Not thread-safe.
+ * <p>The divisor is T, not T - j, as in Newey and West (1987) and Andrews (1991); it keeps S positive
+ * semidefinite for kernels with a non-negative spectral window. Not thread-safe.
  */
 public final class Autocovariances {
 
     private final double[] u;
+    /** The thread's work arrays when this object lives only inside one estimate, else null. */
+    private final Workspace workspace;
     private final int rows;
     private final int cols;
     private final double divisor;
@@ -26,9 +29,10 @@ public final class Autocovariances {
     private double[] gammas = new double[0];
     private int computed = -1;
 
-    private Autocovariances(double[] u, int rows, int cols, double divisor, boolean centered) {
+    private Autocovariances(double[] u, int rows, int cols, double divisor, boolean centered, Workspace workspace) {
         this.centered = centered;
         this.u = u;
+        this.workspace = workspace;
         this.rows = rows;
         this.cols = cols;
         this.divisor = divisor;
@@ -42,9 +46,24 @@ public final class Autocovariances {
      */
     public static Autocovariances of(DMatrixRMaj moments, boolean centered) {
         LongRunCovariance.validate(moments);
-        int t = moments.numRows;
-        int k = moments.numCols;
-        double[] u = Arrays.copyOf(moments.data, t * k);
+        double[] u = Arrays.copyOf(moments.data, moments.numRows * moments.numCols);
+        return centeredIn(u, moments.numRows, moments.numCols, centered, null);
+    }
+
+    /**
+     * As {@link #of(DMatrixRMaj, boolean)}, with the series and V = WU in the thread's work arrays: for
+     * an object that does not outlive the estimate that made it.
+     */
+    static Autocovariances inWorkspace(DMatrixRMaj moments, boolean centered) {
+        LongRunCovariance.validate(moments);
+        Workspace workspace = Workspace.current();
+        int n = moments.numRows * moments.numCols;
+        double[] u = workspace.series(n);
+        System.arraycopy(moments.data, 0, u, 0, n);
+        return centeredIn(u, moments.numRows, moments.numCols, centered, workspace);
+    }
+
+    private static Autocovariances centeredIn(double[] u, int t, int k, boolean centered, Workspace workspace) {
         if (centered) {
             double[] mean = new double[k];
             for (int r = 0; r < t; r++) {
@@ -61,12 +80,12 @@ public final class Autocovariances {
                 }
             }
         }
-        return new Autocovariances(u, t, k, t, centered);
+        return new Autocovariances(u, t, k, t, centered, workspace);
     }
 
     /** Autocovariances of a row-major series that divide by {@code divisor} instead of its length. */
     static Autocovariances ofSeries(double[] u, int rows, int cols, double divisor, boolean centered) {
-        return new Autocovariances(u, rows, cols, divisor, centered);
+        return new Autocovariances(u, rows, cols, divisor, centered, null);
     }
 
     /** Whether the column means were removed from the moments. */
@@ -128,18 +147,23 @@ public final class Autocovariances {
     /**
      * As {@link #longRun(Kernel, double)}, writing into {@code out} (reshaped to K x K).
      *
-     * <p>Two exact routes, chosen from T, K and the number of weighted lags only (never from what
+     * <p>Four exact routes, chosen from T, K, the kernel and the bandwidth only (never from what
      * was computed before, so a reused object gives bit for bit what a fresh one gives):
      * <ul>
+     *   <li>symmetric rank-k product: Γ_0 = U'U/T when no lag carries weight, and for the Bartlett
+     *       kernel with a whole-number bandwidth b, whose weights 1 - |j|/b are the overlap of two
+     *       windows of b observations, S = V'V/(bT) with v_r = u_r + ... + u_{r-b+1} the moving sums
+     *       of the zero-padded series (r = 1..T+b-1); only the upper triangle of V'V is summed,
+     *       (T + b - 1) K²/2 multiply-adds, and S is positive semidefinite by construction;</li>
      *   <li>stored lags: Γ_0..Γ_L formed once (T K² (L+1) multiply-adds) and summed with the
-     *       weights; cheapest for L = 0 or K ≤ 2, and then reused by every later kernel and
-     *       bandwidth that needs no more lags;</li>
+     *       weights; cheapest only for K ≤ 2, and then reused by every later kernel and bandwidth
+     *       that needs no more lags;</li>
      *   <li>Toeplitz form: S = U'(WU)/T with W_ts = k((t-s)/b), the T x T symmetric Toeplitz matrix
      *       of the weights (algebraically the same sum over lags). WU costs 2TKL for a short
      *       window, or K real FFTs of length N ≥ 2T - 1 for a long one (the quadratic spectral
      *       kernel weights all T - 1 lags); the column spectra are kept and reused across kernels
-     *       and bandwidths. Then one T x K by T x K product, T K² multiply-adds, whatever L is,
-     *       instead of T K² (L+1), or T² K²/2 for every lag.</li>
+     *       and bandwidths. U'(WU) is symmetric, so only its upper triangle is summed: T K²/2
+     *       multiply-adds whatever L is, instead of T K² (L+1), or T² K²/2 for every lag.</li>
      * </ul>
      */
     public void longRun(Kernel kernel, double bandwidth, DMatrixRMaj out) {
@@ -148,9 +172,12 @@ public final class Autocovariances {
         }
         int last = lastLag(kernel, bandwidth);
         out.reshape(cols, cols);
-        switch (route(last)) {
+        switch (route(kernel, bandwidth)) {
             case STORED_LAGS:
                 fromStoredLags(kernel, bandwidth, last, out);
+                break;
+            case RANK_K:
+                movingSumProduct(last == 0 ? 1 : (int) bandwidth, out);
                 break;
             case BANDED:
                 weightedSeriesBanded(kernel, bandwidth, last);
@@ -166,26 +193,74 @@ public final class Autocovariances {
     }
 
     /** How {@link #longRun(Kernel, double, DMatrixRMaj)} forms S. */
-    enum Route { STORED_LAGS, BANDED, FFT }
+    enum Route { STORED_LAGS, RANK_K, BANDED, FFT }
 
     /**
-     * The cheaper route by multiply-add count for the given last weighted lag. The FFT count,
-     * 1.25 N log2 N per column for one inverse real transform of length N plus N for the product
-     * with the kernel's spectrum, is an estimate (common practice, no source); the column
-     * transforms are paid once per object and not counted.
+     * The cheapest route by multiply-add count. The FFT count, 1.25 N log2 N per column for one
+     * inverse real transform of length N plus N for the product with the kernel's spectrum, is an
+     * estimate (common practice, no source); the column transforms are paid once per object and
+     * not counted.
      */
-    Route route(int last) {
+    Route route(Kernel kernel, double bandwidth) {
+        int last = lastLag(kernel, bandwidth);
         double t = rows;
         double k = cols;
         double stored = t * k * k * (last + 1);
-        double product = t * k * k;
-        double banded = product + 2.0 * t * k * last;
-        int n = fftLength();
-        double fft = product + k * (1.25 * n * (Math.log(n) / Math.log(2)) + n);
-        if (stored <= Math.min(banded, fft)) {
-            return Route.STORED_LAGS;
+        double triangle = t * k * k / 2.0;
+        double best = Double.POSITIVE_INFINITY;
+        Route route = null;
+        if (isMovingSum(kernel, bandwidth, last)) {
+            double width = last == 0 ? 1 : bandwidth;
+            best = (t + width - 1) * k * k / 2.0 + (width > 1 ? t * k * width : 0.0);
+            route = Route.RANK_K;
         }
-        return banded <= fft ? Route.BANDED : Route.FFT;
+        if (stored < best) {
+            best = stored;
+            route = Route.STORED_LAGS;
+        }
+        double banded = triangle + 2.0 * t * k * last;
+        if (banded < best) {
+            best = banded;
+            route = Route.BANDED;
+        }
+        int n = fftLength();
+        double fft = triangle + k * (1.25 * n * (Math.log(n) / Math.log(2)) + n);
+        if (fft < best) {
+            route = Route.FFT;
+        }
+        return route;
+    }
+
+    /** No weighted lag (Γ_0 alone), or Bartlett weights that are the overlap of two windows of b ≤ T rows. */
+    private boolean isMovingSum(Kernel kernel, double bandwidth, int last) {
+        return last == 0 || kernel == Kernel.BARTLETT && bandwidth == Math.rint(bandwidth) && bandwidth <= rows;
+    }
+
+    /**
+     * S = V'V/(bT), v_r = Σ_{i=0..b-1} u_{r-i} over the zero-padded series, r = 0..T+b-2: the
+     * weight of u_s u_s'' in V'V is the number of windows holding both, (b - |s - s'|)_+.
+     */
+    private void movingSumProduct(int width, DMatrixRMaj out) {
+        double[] s = out.data;
+        Arrays.fill(s, 0, cols * cols, 0.0);
+        if (width == 1) {
+            CrossProducts.addUpper(u, u, rows, cols, s);
+            CrossProducts.symmetricFromUpper(s, cols, 1.0 / divisor);
+            return;
+        }
+        int sums = rows + width - 1;
+        double[] v = workspace == null ? new double[sums * cols] : workspace.sums(sums * cols);
+        Arrays.fill(v, 0, sums * cols, 0.0);
+        int n = rows * cols;
+        // v_r gets u_{r-i} for i = 0..b-1: one contiguous add of the whole series per shift i
+        for (int i = 0; i < width; i++) {
+            int shift = i * cols;
+            for (int j = 0; j < n; j++) {
+                v[shift + j] += u[j];
+            }
+        }
+        CrossProducts.addUpper(v, v, sums, cols, s);
+        CrossProducts.symmetricFromUpper(s, cols, 1.0 / (width * divisor));
     }
 
     private void fromStoredLags(Kernel kernel, double bandwidth, int last, DMatrixRMaj out) {
@@ -208,8 +283,7 @@ public final class Autocovariances {
     }
 
     // Work space of the Toeplitz route, kept between calls so the lag loops never allocate.
-    private DMatrixRMaj weighted;
-    private DMatrixRMaj seriesView;
+    private double[] weighted;
     private double[][] spectra;
     private double[] kernelSpectrum;
     private double[] column;
@@ -217,15 +291,14 @@ public final class Autocovariances {
 
     private void prepareWeighted() {
         if (weighted == null) {
-            weighted = new DMatrixRMaj(rows, cols);
-            seriesView = DMatrixRMaj.wrap(rows, cols, u);
+            weighted = workspace == null ? new double[rows * cols] : workspace.weighted(rows * cols);
         }
     }
 
     /** V = WU for a window of {@code last} lags: V_t = u_t + Σ_j w_j (u_{t-j} + u_{t+j}). */
     private void weightedSeriesBanded(Kernel kernel, double bandwidth, int last) {
         prepareWeighted();
-        double[] v = weighted.data;
+        double[] v = weighted;
         int n = rows * cols;
         System.arraycopy(u, 0, v, 0, n);
         for (int j = 1; j <= last; j++) {
@@ -254,7 +327,7 @@ public final class Autocovariances {
         prepareWeighted();
         int n = fftLength();
         if (spectra == null) {
-            fft = new DoubleFFT_1D(n);
+            fft = workspace == null ? new DoubleFFT_1D(n) : workspace.fft(n);
             kernelSpectrum = new double[n];
             column = new double[n];
             spectra = new double[cols][];
@@ -277,7 +350,7 @@ public final class Autocovariances {
         }
         fft.realForward(w);
         // realForward packs (Re 0, Re N/2, Re 1, Im 1, ...); for an even c every Im is rounding only
-        double[] v = weighted.data;
+        double[] v = weighted;
         for (int c = 0; c < cols; c++) {
             double[] x = spectra[c];
             column[0] = x[0] * w[0];
@@ -294,19 +367,12 @@ public final class Autocovariances {
         }
     }
 
-    /** S = (U'V + V'U)/(2T): U'WU is symmetric, averaging the two triangles makes it exactly so. */
+    /** S = U'V/T from the upper triangle: U'WU is symmetric, so the lower triangle is its mirror image. */
     private void crossProduct(DMatrixRMaj out) {
-        CommonOps_DDRM.multTransA(seriesView, weighted, out);
         double[] s = out.data;
-        double scale = 0.5 / divisor;
-        for (int p = 0; p < cols; p++) {
-            s[p * cols + p] /= divisor;
-            for (int q = p + 1; q < cols; q++) {
-                double m = (s[p * cols + q] + s[q * cols + p]) * scale;
-                s[p * cols + q] = m;
-                s[q * cols + p] = m;
-            }
-        }
+        Arrays.fill(s, 0, cols * cols, 0.0);
+        CrossProducts.addUpper(u, weighted, rows, cols, s);
+        CrossProducts.symmetricFromUpper(s, cols, 1.0 / divisor);
     }
 
     /** Smallest even N ≥ 2T - 1 with no prime factor above 5, so every weighted lag fits and the FFT is fast. */
@@ -330,15 +396,9 @@ public final class Autocovariances {
         return n == 1;
     }
 
-    /** The last lag that can carry weight: floor(b) for truncated kernels, every lag for QS. */
+    /** The last lag that can carry weight, from the kernel's support (every lag for QS). */
     int lastLag(Kernel kernel, double bandwidth) {
-        if (kernel == Kernel.NONE || bandwidth == 0.0) {
-            return 0;
-        }
-        if (!kernel.isTruncated()) {
-            return maxLag();
-        }
-        return (int) Math.min(maxLag(), Math.floor(bandwidth));
+        return kernel.lastWeightedLag(bandwidth, maxLag());
     }
 
     /** Computes Γ_j up to lag {@code last}, growing the store once so the lag loop never allocates. */

@@ -4,7 +4,8 @@ import java.util.List;
 
 /**
  * Automatic bandwidth rules. Both take a row-major series u (n x K) and per-column weights; the
- * fine print (DESIGN.md section 3) was chosen to agree with R's sandwich package.
+ * fine print (AR(1) by OLS with an intercept, residual variance RSS/(n - 1); divisor T after
+ * prewhitening) was chosen to agree with R's sandwich package.
  */
 final class Bandwidths {
 
@@ -18,13 +19,14 @@ final class Bandwidths {
      * by OLS on (1, u_{t-1}), σ_a² = RSS/(n - 1) (the residual mean square), then
      * α(1) = Σ w_a 4ρ²σ⁴/((1-ρ)⁶(1+ρ)²) / Σ w_a σ⁴/(1-ρ)⁴,
      * α(2) = Σ w_a 4ρ²σ⁴/(1-ρ)⁸ / Σ w_a σ⁴/(1-ρ)⁴, and
-     * b = 1.1447 (α(1) n)^{1/3} (Bartlett), 2.6614 (α(2) n)^{1/5} (Parzen), 1.7462 (α(2) n)^{1/5}
-     * (Tukey-Hanning), 1.3221 (α(2) n)^{1/5} (quadratic spectral), 0.6611 (α(2) n)^{1/5} (truncated).
+     * b = c (α(q) n)^{1/(2q+1)} with the kernel's {@link Kernel#andrews() constants}: 1.1447 (α(1) n)^{1/3}
+     * (Bartlett), 2.6614 (α(2) n)^{1/5} (Parzen), 1.7462 (α(2) n)^{1/5} (Tukey-Hanning), 1.3221 (α(2) n)^{1/5}
+     * (quadratic spectral), 0.6611 (α(2) n)^{1/5} (truncated).
      * n is the number of rows of u (T - 1 after prewhitening).
      */
     static double andrews(double[] u, int n, int k, Kernel kernel, double[] weights, List<String> warnings) {
         if (n < 3) {
-            throw new IllegalArgumentException("Andrews bandwidth needs at least 3 observations to fit an AR(1), got "
+            throw new LongRunException("Andrews bandwidth needs at least 3 observations to fit an AR(1), got "
                     + n);
         }
         double denom = 0.0;
@@ -47,7 +49,7 @@ final class Bandwidths {
                 sxx += x * x;
             }
             if (sxx == 0.0) {
-                throw new IllegalArgumentException("Andrews bandwidth: moment column " + a
+                throw new LongRunException("Andrews bandwidth: moment column " + a
                         + " (0-based) is constant, so its AR(1) coefficient is undefined");
             }
             double rho = sxy / sxx;
@@ -70,30 +72,19 @@ final class Bandwidths {
         }
         double alpha1 = num1 / denom;
         double alpha2 = num2 / denom;
-        double b;
-        switch (kernel) {
-            case NONE:
-                return 0.0;
-            case TRUNCATED:
-                b = 0.6611 * Math.pow(alpha2 * n, 0.2);
-                break;
-            case BARTLETT:
-                b = 1.1447 * Math.pow(alpha1 * n, 1.0 / 3.0);
-                break;
-            case PARZEN:
-                b = 2.6614 * Math.pow(alpha2 * n, 0.2);
-                break;
-            case TUKEY_HANNING:
-                b = 1.7462 * Math.pow(alpha2 * n, 0.2);
-                break;
-            case QUADRATIC_SPECTRAL:
-                b = 1.3221 * Math.pow(alpha2 * n, 0.2);
-                break;
-            default:
-                throw new AssertionError(kernel);
+        Kernel.AutomaticConstants constants = kernel.andrews().orElse(null);
+        if (constants == null) {
+            return 0.0;
         }
+        double alpha = switch (constants.q()) {
+            case 1 -> alpha1;
+            case 2 -> alpha2;
+            default -> throw new IllegalStateException("kernel " + kernel.id() + ": the AR(1) plug-in of Andrews (1991)"
+                    + " gives α(q) for q = 1 and 2 only, not " + constants.q());
+        };
+        double b = constants.constant() * Math.pow(alpha * n, constants.exponent());
         if (!Double.isFinite(b)) {
-            throw new IllegalArgumentException("Andrews bandwidth is not finite (" + b + "): alpha(1)=" + alpha1
+            throw new LongRunException("Andrews bandwidth is not finite (" + b + "): alpha(1)=" + alpha1
                     + ", alpha(2)=" + alpha2);
         }
         return b;
@@ -104,7 +95,8 @@ final class Bandwidths {
      * Economic Studies 61(4), 631-653: with h_t = w'u_t and σ_j = (1/n) Σ_t h_t h_{t-j},
      * s⁽⁰⁾ = σ_0 + 2 Σ_{j=1..m} σ_j, s⁽q⁾ = 2 Σ_{j=1..m} j^q σ_j and
      * b = c_k ((s⁽q⁾/s⁽⁰⁾)²)^{1/(2q+1)} T^{1/(2q+1)}; Bartlett q = 1, c = 1.1447; Parzen q = 2,
-     * c = 2.6614; quadratic spectral q = 2, c = 1.3221. The truncation lag is
+     * c = 2.6614; quadratic spectral q = 2, c = 1.3221 (the kernel's {@link Kernel#neweyWest() constants}).
+     * The truncation lag is
      * m = floor(4 (T/100)^{2/9}) for Bartlett, exponent 4/25 for Parzen and 2/25 for QS; after
      * prewhitening the leading 4 becomes 3. T is the original sample size even when u holds the
      * T - 1 prewhitened residuals.
@@ -113,31 +105,15 @@ final class Bandwidths {
      */
     static double neweyWest(double[] u, int n, int k, Kernel kernel, double[] weights, int originalT,
             boolean prewhitened) {
-        double rate;
-        int q;
-        double c;
-        switch (kernel) {
-            case NONE:
-                return 0.0;
-            case BARTLETT:
-                rate = 2.0 / 9.0;
-                q = 1;
-                c = 1.1447;
-                break;
-            case PARZEN:
-                rate = 4.0 / 25.0;
-                q = 2;
-                c = 2.6614;
-                break;
-            case QUADRATIC_SPECTRAL:
-                rate = 2.0 / 25.0;
-                q = 2;
-                c = 1.3221;
-                break;
-            default:
-                throw new IllegalArgumentException("the Newey-West (1994) bandwidth rule is defined for kernels"
-                        + " bartlett, parzen and quadratic-spectral, not " + kernel.id() + "; use the Andrews rule");
+        if (!kernel.usesBandwidth()) {
+            return 0.0;
         }
+        Kernel.AutomaticConstants constants = kernel.neweyWest().orElseThrow(() -> new IllegalArgumentException(
+                "the Newey-West (1994) bandwidth rule has no constants for kernel " + kernel.id()
+                        + "; use the Andrews rule"));
+        double rate = constants.rate();
+        int q = constants.q();
+        double c = constants.constant();
         int m = (int) Math.floor((prewhitened ? 3.0 : 4.0) * Math.pow(originalT / 100.0, rate));
         m = Math.min(m, n - 1);
         double[] h = new double[n];
@@ -166,7 +142,7 @@ final class Bandwidths {
         double exponent = 1.0 / (2.0 * q + 1.0);
         double b = c * Math.pow((sq / s0) * (sq / s0), exponent) * Math.pow(originalT, exponent);
         if (!Double.isFinite(b)) {
-            throw new IllegalArgumentException("Newey-West bandwidth is not finite (" + b + "): s0=" + s0 + ", s"
+            throw new LongRunException("Newey-West bandwidth is not finite (" + b + "): s0=" + s0 + ", s"
                     + q + "=" + sq);
         }
         return b;

@@ -36,16 +36,18 @@ public final class LongRunCovariance {
      */
     public static LongRunEstimate estimate(DMatrixRMaj moments, LongRunOptions options) {
         Objects.requireNonNull(options, "options");
-        Autocovariances ac = Autocovariances.of(moments, options.centered());
         List<String> warnings = new ArrayList<>();
         if (!options.prewhiten()) {
+            // nothing of this estimate outlives it, so its series lives in the thread's work arrays
+            Autocovariances ac = Autocovariances.inWorkspace(moments, options.centered());
             double b = bandwidth(ac, options, moments.numRows, false, warnings);
             DMatrixRMaj s = ac.longRun(options.kernel(), b);
             checkPositiveSemidefinite(s, options.kernel(), warnings);
             return new LongRunEstimate(s, options.kernel(), b, options.centered(), false, warnings);
         }
+        Autocovariances ac = Autocovariances.of(moments, options.centered());
         Prewhitening pw = Prewhitening.fit(ac.series(), ac.observations(), ac.columns());
-        // The residuals' autocovariances still divide by the original T (DESIGN.md fine print).
+        // The residuals' autocovariances still divide by the original T, as R's sandwich does (n.orig).
         Autocovariances residuals = Autocovariances.ofSeries(pw.residuals, pw.rows, ac.columns(),
                 ac.observations(), ac.centered());
         double b = bandwidth(residuals, options, moments.numRows, true, warnings);
@@ -95,7 +97,7 @@ public final class LongRunCovariance {
         } else {
             throw new AssertionError(rule);
         }
-        if (kernel.isTruncated() && b > ac.maxLag() + 1) {
+        if (kernel.isTruncated() && b * kernel.support() > ac.maxLag() + 1) {
             warnings.add("bandwidth " + b + " reaches beyond the " + ac.maxLag()
                     + " lags the sample has; all available lags were used");
         }
@@ -142,11 +144,27 @@ public final class LongRunCovariance {
         return smallest;
     }
 
-    /** DESIGN.md: every moment column counts the same in the automatic bandwidth rules. */
+    /**
+     * Every moment column counts the same in the automatic bandwidth rules: unlike a regression's
+     * intercept score, which sandwich down-weights, no moment column has a special role.
+     */
     private static double[] equalWeights(Autocovariances ac) {
         double[] w = new double[ac.columns()];
         java.util.Arrays.fill(w, 1.0);
         return w;
+    }
+
+    /**
+     * The second-moment matrix (1/T) Σ_t x_t x_t' of the rows of a T x K matrix, as the symmetric
+     * rank-k product of {@link CrossProducts}: the uncentered Γ_0, and the G of the Hansen-Jagannathan
+     * distance (Hansen and Jagannathan 1997). Returns a new symmetric K x K matrix.
+     */
+    public static DMatrixRMaj secondMoments(DMatrixRMaj x) {
+        int k = x.numCols;
+        DMatrixRMaj g = new DMatrixRMaj(k, k);
+        CrossProducts.addUpper(x.data, x.data, x.numRows, k, g.data);
+        CrossProducts.symmetricFromUpper(g.data, k, 1.0 / x.numRows);
+        return g;
     }
 
     /**
@@ -179,7 +197,7 @@ public final class LongRunCovariance {
     static void validate(DMatrixRMaj f) {
         Objects.requireNonNull(f, "moments");
         if (f.numRows < 2) {
-            throw new IllegalArgumentException("long-run covariance needs at least 2 observations (rows), got T="
+            throw new LongRunException("long-run covariance needs at least 2 observations (rows), got T="
                     + f.numRows);
         }
         if (f.numCols < 1) {
@@ -190,7 +208,7 @@ public final class LongRunCovariance {
             for (int c = 0; c < f.numCols; c++) {
                 double v = f.data[r * f.numCols + c];
                 if (!Double.isFinite(v)) {
-                    throw new IllegalArgumentException("moment matrix holds " + v + " at row " + r + ", column "
+                    throw new LongRunException("moment matrix holds " + v + " at row " + r + ", column "
                             + c + " (0-based); all values must be finite");
                 }
             }

@@ -48,7 +48,7 @@ final class Prewhitening {
     static Prewhitening fit(double[] u, int t, int k) {
         int n = t - 1;
         if (n < k + 1) {
-            throw new IllegalArgumentException("VAR(1) prewhitening of " + k + " moment columns needs at least "
+            throw new LongRunException("VAR(1) prewhitening of " + k + " moment columns needs at least "
                     + (k + 2) + " observations, got T=" + t);
         }
         DMatrixRMaj x = new DMatrixRMaj(n, k);
@@ -57,7 +57,7 @@ final class Prewhitening {
         System.arraycopy(u, k, y.data, 0, n * k);
         QRPDecomposition_F64<DMatrixRMaj> qrp = DecompositionFactory_DDRM.qrp(n, k);
         if (!qrp.decompose(x.copy())) {
-            throw new IllegalArgumentException("VAR(1) prewhitening: the lagged moment matrix is rank deficient");
+            throw new LongRunException("VAR(1) prewhitening: the lagged moment matrix is rank deficient");
         }
         // EJML's solver quality() is the product of |r_ii| / max |r_ii|, which underflows with
         // many well-conditioned columns (K = 43 gave 4e-17); the smallest ratio of the pivoted-QR
@@ -72,7 +72,7 @@ final class Prewhitening {
         }
         double ratio = least / largest;
         if (!(ratio >= MIN_DIAGONAL_RATIO)) {
-            throw new IllegalArgumentException("VAR(1) prewhitening: the lagged moment matrix is rank deficient"
+            throw new LongRunException("VAR(1) prewhitening: the lagged moment matrix is rank deficient"
                     + " (smallest/largest pivoted-QR diagonal " + ratio + ", limit " + MIN_DIAGONAL_RATIO + ")");
         }
         // X P = Q R, so R (P'B) = Q'Y. EJML's least-squares solve applies the reflectors one
@@ -97,13 +97,13 @@ final class Prewhitening {
             smallest = Math.min(smallest, sv);
         }
         if (!(smallest >= MIN_SINGULAR_VALUE)) {
-            throw new IllegalArgumentException("VAR(1) prewhitening refused: I - A is near singular (smallest singular"
+            throw new LongRunException("VAR(1) prewhitening refused: I - A is near singular (smallest singular"
                     + " value " + smallest + ", limit " + MIN_SINGULAR_VALUE + "), the moments behave like a"
                     + " unit-root process; estimate without prewhitening");
         }
         DMatrixRMaj d = new DMatrixRMaj(k, k);
         if (!CommonOps_DDRM.invert(iMinusA, d)) {
-            throw new IllegalArgumentException("VAR(1) prewhitening refused: I - A is singular");
+            throw new LongRunException("VAR(1) prewhitening refused: I - A is singular");
         }
         return new Prewhitening(a, d, e.data, n);
     }

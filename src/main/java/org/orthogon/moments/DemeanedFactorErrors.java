@@ -23,10 +23,8 @@ import java.util.List;
  * reports F_k for them (e = 1·F_k - μ_k), so the Hansen-Jagannathan distance is taken over the first
  * {@link #pricingMoments()} moments only, with μ = f̄ ({@link #distanceErrors()}).
  */
-public final class DemeanedFactorErrors extends NamedErrors {
-    private final double[][] excessReturns; // [t][i]
+public final class DemeanedFactorErrors extends SdfErrors {
     private final double[][] factors; // [t][k]
-    private final int assets;
     private final int factorCount;
 
     /**
@@ -38,17 +36,26 @@ public final class DemeanedFactorErrors extends NamedErrors {
     public DemeanedFactorErrors(double[][] excessReturns, double[][] factors, List<String> assetNames,
             List<String> factorNames) {
         super(MomentAlgebra.concat(MomentAlgebra.prefixed("b_", factorNames), MomentAlgebra.prefixed("mu_", factorNames)),
-                MomentAlgebra.concat(assetNames, MomentAlgebra.prefixed("mean_", factorNames)));
+                assetNames, excessReturns, Payoff.EXCESS, MomentAlgebra.prefixed("mean_", factorNames));
         MomentAlgebra.requireRows(excessReturns.length, factors.length, "returns", "factors");
-        this.assets = assetNames.size();
         this.factorCount = factorNames.size();
-        this.excessReturns = MomentAlgebra.copyRows(excessReturns, assets, "return");
         this.factors = MomentAlgebra.copyRows(factors, factorCount, "factor");
+    }
+
+    private DemeanedFactorErrors(DemeanedFactorErrors source, int[] rows) {
+        super(source, rows);
+        this.factorCount = source.factorCount;
+        this.factors = pick(source.factors, rows);
+    }
+
+    @Override
+    protected DemeanedFactorErrors onRows(int[] rows) {
+        return new DemeanedFactorErrors(this, rows);
     }
 
     /** The number N of moments that price assets; the K factor-mean moments follow them. */
     public int pricingMoments() {
-        return assets;
+        return pricedAssets();
     }
 
     /** Sample factor means, the exactly identified estimate of μ and a natural start value. */
@@ -62,24 +69,8 @@ public final class DemeanedFactorErrors extends NamedErrors {
         return mean;
     }
 
-
-
     @Override
-    public int observations() {
-        return excessReturns.length;
-    }
-
-    @Override
-    public void payoffs(double[] out) {
-        int width = assets + factorCount;
-        for (int t = 0; t < excessReturns.length; t++) {
-            System.arraycopy(excessReturns[t], 0, out, t * width, assets);
-            System.arraycopy(factors[t], 0, out, t * width + assets, factorCount);
-        }
-    }
-
-    @Override
-    public void discountFactor(double[] theta, double[] out) {
+    protected void sdf(double[] theta, double[] out) {
         for (int t = 0; t < factors.length; t++) {
             double sdf = 1.0;
             for (int k = 0; k < factorCount; k++) {
@@ -92,65 +83,51 @@ public final class DemeanedFactorErrors extends NamedErrors {
     /** The N asset errors at μ = f̄, the moment set of this form's Hansen-Jagannathan distance. */
     @Override
     public java.util.Optional<ObservationErrors> distanceErrors() {
-        return java.util.Optional.of(new DemeanedPricingErrors(excessReturns, factors,
-                assetNames.subList(0, assets), factorNames()));
+        return java.util.Optional.of(new DemeanedPricingErrors(pricedPayoffRows(), factors,
+                assetNames().subList(0, pricedAssets()), factorNames()));
     }
 
     private List<String> factorNames() {
-        return parameterNames.subList(0, factorCount).stream().map(name -> name.substring(2)).toList();
+        return parameterNames().subList(0, factorCount).stream().map(name -> name.substring(2)).toList();
     }
 
     @Override
-    public int pricedAssets() {
-        return assets;
+    protected void sdfGradient(double[] theta, double[][] out) {
+        for (int t = 0; t < factors.length; t++) {
+            for (int k = 0; k < factorCount; k++) {
+                out[k][t] = -(factors[t][k] - theta[factorCount + k]);
+                out[factorCount + k][t] = theta[k];
+            }
+        }
+    }
+
+    @Override
+    protected void auxiliaryErrors(double[] theta, double[] out) {
+        for (int t = 0; t < factors.length; t++) {
+            for (int k = 0; k < factorCount; k++) {
+                out[t * factorCount + k] = factors[t][k] - theta[factorCount + k];
+            }
+        }
+    }
+
+    @Override
+    protected void auxiliaryDerivatives(double[] theta, double[][] out) {
+        for (int t = 0; t < factors.length; t++) {
+            for (int k = 0; k < factorCount; k++) {
+                out[factorCount + k][t * factorCount + k] = -1.0;
+            }
+        }
+    }
+
+    @Override
+    protected void auxiliaryPayoffs(double[] out) {
+        for (int t = 0; t < factors.length; t++) {
+            System.arraycopy(factors[t], 0, out, t * factorCount, factorCount);
+        }
     }
 
     @Override
     public boolean isLinear() {
         return false;
-    }
-
-    @Override
-    public void errors(double[] theta, double[] out) {
-        int width = assets + factorCount;
-        for (int t = 0; t < excessReturns.length; t++) {
-            double[] f = factors[t];
-            double sdf = 1.0;
-            for (int k = 0; k < factorCount; k++) {
-                sdf -= theta[k] * (f[k] - theta[factorCount + k]);
-            }
-            double[] r = excessReturns[t];
-            int row = t * width;
-            for (int i = 0; i < assets; i++) {
-                out[row + i] = r[i] * sdf;
-            }
-            for (int k = 0; k < factorCount; k++) {
-                out[row + assets + k] = f[k] - theta[factorCount + k];
-            }
-        }
-    }
-
-    @Override
-    public void errorDerivatives(double[] theta, double[][] out) {
-        int width = assets + factorCount;
-        for (int t = 0; t < excessReturns.length; t++) {
-            double[] f = factors[t];
-            double[] r = excessReturns[t];
-            int row = t * width;
-            for (int k = 0; k < factorCount; k++) {
-                double demeaned = f[k] - theta[factorCount + k];
-                double b = theta[k];
-                double[] byB = out[k];
-                double[] byMu = out[factorCount + k];
-                for (int i = 0; i < assets; i++) {
-                    byB[row + i] = -r[i] * demeaned;
-                    byMu[row + i] = r[i] * b;
-                }
-                for (int j = 0; j < factorCount; j++) {
-                    byB[row + assets + j] = 0.0;
-                    byMu[row + assets + j] = j == k ? -1.0 : 0.0;
-                }
-            }
-        }
     }
 }

@@ -17,9 +17,17 @@ import java.util.List;
  * <p>This is the moment set of the Hansen-Jagannathan distance of the demeaned form: the N assets it
  * prices, weighted by their second moments E[R^e R^e'], with μ = f̄ rather than the factor-mean moments,
  * which price no payoff (Kan and Robotti 2009 measure the demeaned SDF's distance the same way).
+ *
+ * <p>The errors are not of the form m x - p (the second term), so this class implements
+ * {@link ObservationErrors} itself; a row selection recomputes f̄ and R̄ on the rows it keeps, so a
+ * subsample's distance is taken at its own sample means.
  */
-public final class DemeanedPricingErrors extends NamedErrors {
+public final class DemeanedPricingErrors implements ObservationErrors {
+    private final List<String> parameterNames;
+    private final List<String> assetNames;
+    private final List<String> factorNames;
     private final double[][] excessReturns; // [t][i]
+    private final double[][] factors; // [t][k], as given
     private final double[][] demeanedFactors; // [t][k], F_t - f̄
     private final double[] meanReturns;
 
@@ -31,9 +39,12 @@ public final class DemeanedPricingErrors extends NamedErrors {
      */
     public DemeanedPricingErrors(double[][] excessReturns, double[][] factors, List<String> assetNames,
             List<String> factorNames) {
-        super(MomentAlgebra.prefixed("b_", factorNames), assetNames);
+        this.parameterNames = MomentAlgebra.prefixed("b_", factorNames);
+        this.assetNames = List.copyOf(assetNames);
+        this.factorNames = List.copyOf(factorNames);
         MomentAlgebra.requireRows(excessReturns.length, factors.length, "returns", "factors");
         this.excessReturns = MomentAlgebra.copyRows(excessReturns, assetNames.size(), "return");
+        this.factors = MomentAlgebra.copyRows(factors, factorNames.size(), "factor");
         double[][] copy = MomentAlgebra.copyRows(factors, factorNames.size(), "factor");
         int t = copy.length;
         double[] factorMeans = new double[factorNames.size()];
@@ -57,8 +68,36 @@ public final class DemeanedPricingErrors extends NamedErrors {
     }
 
     @Override
+    public List<String> parameterNames() {
+        return parameterNames;
+    }
+
+    @Override
+    public List<String> assetNames() {
+        return assetNames;
+    }
+
+    @Override
     public int observations() {
         return excessReturns.length;
+    }
+
+    @Override
+    public DemeanedPricingErrors select(int[] rows) {
+        if (rows.length < 1) {
+            throw new IllegalArgumentException("a selection needs at least one row");
+        }
+        double[][] returns = new double[rows.length][];
+        double[][] picked = new double[rows.length][];
+        for (int r = 0; r < rows.length; r++) {
+            if (rows[r] < 0 || rows[r] >= excessReturns.length) {
+                throw new IllegalArgumentException("row " + rows[r] + " is not one of the " + excessReturns.length
+                        + " observations");
+            }
+            returns[r] = excessReturns[rows[r]];
+            picked[r] = factors[rows[r]];
+        }
+        return new DemeanedPricingErrors(returns, picked, assetNames, factorNames);
     }
 
     @Override

@@ -22,28 +22,10 @@ import net.objecthunter.exp4j.tokenizer.UnknownFunctionOrVariableException;
  * system. Implicit multiplication ("2beta") is switched off so that a forgotten operator is an error,
  * not a silent product.
  *
- * <p>Derivatives are numerical: {@link CentralDifferences} with steps ε^{1/3} max(|θ_p|, 1).
+ * <p>Derivatives are numerical: {@link CentralDifferences} of m_t with steps ε^{1/3} max(|θ_p|, 1); the
+ * errors' derivatives follow as ∂m_t/∂θ_p · x_{t,i}.
  */
-public final class ExpressionSdfErrors extends NamedErrors {
-
-    /** What the priced payoffs are, which fixes their price p in e = m x - p. */
-    public enum PayoffKind {
-        /** Gross returns, price 1. */
-        GROSS(1.0),
-        /** Excess (zero-cost) returns, price 0. */
-        EXCESS(0.0);
-
-        private final double price;
-
-        PayoffKind(double price) {
-            this.price = price;
-        }
-
-        /** The price p of one unit of this kind of payoff. */
-        public double price() {
-            return price;
-        }
-    }
+public final class ExpressionSdfErrors extends SdfErrors {
 
     /** A formula the family refuses, with the offending name and its place when there is one. */
     public static final class ExpressionException extends IllegalArgumentException {
@@ -75,8 +57,6 @@ public final class ExpressionSdfErrors extends NamedErrors {
     private final Expression template;
     private final List<String> dataNames;
     private final double[][] data; // [column][t], only the columns the formula uses
-    private final double[][] payoffs; // [t][i]
-    private final double price;
 
     /**
      * @param formula        the SDF, e.g. "beta * cons_growth^(-gamma)"
@@ -91,11 +71,9 @@ public final class ExpressionSdfErrors extends NamedErrors {
      *                             both as a column and as a parameter, or leaves a parameter unused
      */
     public ExpressionSdfErrors(String formula, List<String> parameterNames, Map<String, double[]> dataColumns,
-            double[][] payoffs, List<String> assetNames, PayoffKind kind) {
-        super(parameterNames, assetNames);
+            double[][] payoffs, List<String> assetNames, Payoff kind) {
+        super(parameterNames, assetNames, payoffs, kind, List.of());
         this.formula = formula;
-        this.payoffs = MomentAlgebra.copyRows(payoffs, assetNames.size(), "payoff");
-        this.price = kind.price();
         if (formula == null || formula.isBlank()) {
             throw new ExpressionException("the SDF expression is empty; write it over data columns and parameters,"
                     + " e.g. \"beta * cons_growth^(-gamma)\"", null, 0);
@@ -161,6 +139,22 @@ public final class ExpressionSdfErrors extends NamedErrors {
         this.data = kept.values().toArray(new double[0][]);
     }
 
+    private ExpressionSdfErrors(ExpressionSdfErrors source, int[] rows) {
+        super(source, rows);
+        this.formula = source.formula;
+        this.template = source.template;
+        this.dataNames = source.dataNames;
+        this.data = new double[source.data.length][];
+        for (int j = 0; j < data.length; j++) {
+            this.data[j] = pick(source.data[j], rows);
+        }
+    }
+
+    @Override
+    protected ExpressionSdfErrors onRows(int[] rows) {
+        return new ExpressionSdfErrors(this, rows);
+    }
+
     /** The formula as given. */
     public String formula() {
         return formula;
@@ -184,9 +178,9 @@ public final class ExpressionSdfErrors extends NamedErrors {
         // A private copy per call: exp4j expressions hold their variable values.
         Expression expression = new Expression(template);
         for (int p = 0; p < theta.length; p++) {
-            expression.setVariable(parameterNames.get(p), theta[p]);
+            expression.setVariable(parameterNames().get(p), theta[p]);
         }
-        double[] m = new double[payoffs.length];
+        double[] m = new double[observations()];
         for (int t = 0; t < m.length; t++) {
             for (int j = 0; j < data.length; j++) {
                 expression.setVariable(dataNames.get(j), data[j][t]);
@@ -199,36 +193,15 @@ public final class ExpressionSdfErrors extends NamedErrors {
 
 
     @Override
-    public int observations() {
-        return payoffs.length;
-    }
-
-    @Override
-    public void errors(double[] theta, double[] out) {
+    protected void sdf(double[] theta, double[] out) {
         double[] m = sdf(theta);
-        int n = assetNames.size();
-        for (int t = 0; t < m.length; t++) {
-            double[] x = payoffs[t];
-            for (int i = 0; i < n; i++) {
-                out[t * n + i] = m[t] * x[i] - price;
-            }
-        }
+        System.arraycopy(m, 0, out, 0, m.length);
     }
 
+    /** Central differences of m_t itself: e = m x - p is linear in m, so this is ∂e/∂θ divided by x. */
     @Override
-    public void errorDerivatives(double[] theta, double[][] out) {
-        CentralDifferences.derivatives(this::errors, theta, payoffs.length * assetNames.size(), out);
-    }
-
-    @Override
-    public void discountFactor(double[] theta, double[] out) {
-        double[] sdf = sdf(theta);
-        System.arraycopy(sdf, 0, out, 0, sdf.length);
-    }
-
-    @Override
-    public void payoffs(double[] out) {
-        MomentAlgebra.flatten(payoffs, out);
+    protected void sdfGradient(double[] theta, double[][] out) {
+        CentralDifferences.derivatives(this::sdf, theta, observations(), out);
     }
 
     /** Always false: a formula is treated as non-linear even when it happens to be affine. */

@@ -10,10 +10,9 @@ import java.util.List;
  * rate separately and appends it as the last asset, so it cannot be forgotten.
  *
  * <p>Affine in θ = (a, b): ∂e_i/∂a = R_i and ∂e_i/∂b_k = -F_k R_i, so {@link #isLinear()} is true and
- * the closed form of DESIGN.md section 3 applies.
+ * the closed-form GMM estimate θ = -(D'WD)^{-1} D'W g_T(0) applies.
  */
-public final class GrossFactorErrors extends NamedErrors {
-    private final double[][] grossReturns; // [t][i], risk-free appended last
+public final class GrossFactorErrors extends SdfErrors {
     private final double[][] factors;
 
     /**
@@ -27,37 +26,43 @@ public final class GrossFactorErrors extends NamedErrors {
     public GrossFactorErrors(double[][] grossReturns, double[] riskfreeGross, double[][] factors,
             List<String> assetNames, String riskfreeName, List<String> factorNames) {
         super(MomentAlgebra.concat(List.of("a"), MomentAlgebra.prefixed("b_", factorNames)),
-                MomentAlgebra.concat(assetNames, List.of(riskfreeName)));
-        MomentAlgebra.requireRows(grossReturns.length, riskfreeGross.length, "returns", "risk-free rates");
+                MomentAlgebra.concat(assetNames, List.of(riskfreeName)),
+                withRiskfree(grossReturns, riskfreeGross, assetNames, riskfreeName), Payoff.GROSS, List.of());
         MomentAlgebra.requireRows(grossReturns.length, factors.length, "returns", "factors");
+        this.factors = MomentAlgebra.copyRows(factors, factorNames.size(), "factor");
+    }
+
+    private GrossFactorErrors(GrossFactorErrors source, int[] rows) {
+        super(source, rows);
+        this.factors = pick(source.factors, rows);
+    }
+
+    /** The test assets' gross returns with the risk-free rate appended as the last priced asset. */
+    private static double[][] withRiskfree(double[][] grossReturns, double[] riskfreeGross, List<String> assetNames,
+            String riskfreeName) {
+        MomentAlgebra.requireRows(grossReturns.length, riskfreeGross.length, "returns", "risk-free rates");
         if (assetNames.contains(riskfreeName)) {
             throw new IllegalArgumentException("the risk-free asset " + riskfreeName
                     + " is also among the test assets; it is added once, automatically");
         }
         int n = assetNames.size();
         double[][] assets = MomentAlgebra.copyRows(grossReturns, n, "return");
-        this.grossReturns = new double[assets.length][n + 1];
+        double[][] rows = new double[assets.length][];
         for (int t = 0; t < assets.length; t++) {
-            System.arraycopy(assets[t], 0, this.grossReturns[t], 0, n);
-            this.grossReturns[t][n] = riskfreeGross[t];
+            double[] row = java.util.Arrays.copyOf(assets[t], n + 1);
+            row[n] = riskfreeGross[t];
+            rows[t] = row;
         }
-        this.factors = MomentAlgebra.copyRows(factors, factorNames.size(), "factor");
-    }
-
-
-
-    @Override
-    public int observations() {
-        return grossReturns.length;
+        return rows;
     }
 
     @Override
-    public void payoffs(double[] out) {
-        MomentAlgebra.flatten(grossReturns, out);
+    protected GrossFactorErrors onRows(int[] rows) {
+        return new GrossFactorErrors(this, rows);
     }
 
     @Override
-    public void discountFactor(double[] theta, double[] out) {
+    protected void sdf(double[] theta, double[] out) {
         for (int t = 0; t < factors.length; t++) {
             double sdf = theta[0];
             for (int k = 0; k < factors[t].length; k++) {
@@ -68,38 +73,17 @@ public final class GrossFactorErrors extends NamedErrors {
     }
 
     @Override
+    protected void sdfGradient(double[] theta, double[][] out) {
+        for (int t = 0; t < factors.length; t++) {
+            out[0][t] = 1.0;
+            for (int k = 0; k < factors[t].length; k++) {
+                out[k + 1][t] = -factors[t][k];
+            }
+        }
+    }
+
+    @Override
     public boolean isLinear() {
         return true;
-    }
-
-    @Override
-    public void errors(double[] theta, double[] out) {
-        int n = assetNames.size();
-        for (int t = 0; t < grossReturns.length; t++) {
-            double sdf = theta[0];
-            double[] f = factors[t];
-            for (int k = 0; k < f.length; k++) {
-                sdf -= theta[k + 1] * f[k];
-            }
-            double[] r = grossReturns[t];
-            for (int i = 0; i < n; i++) {
-                out[t * n + i] = sdf * r[i] - 1.0;
-            }
-        }
-    }
-
-    @Override
-    public void errorDerivatives(double[] theta, double[][] out) {
-        int n = assetNames.size();
-        for (int t = 0; t < grossReturns.length; t++) {
-            double[] f = factors[t];
-            double[] r = grossReturns[t];
-            for (int i = 0; i < n; i++) {
-                out[0][t * n + i] = r[i];
-                for (int k = 0; k < f.length; k++) {
-                    out[k + 1][t * n + i] = -f[k] * r[i];
-                }
-            }
-        }
     }
 }

@@ -9,8 +9,7 @@ import java.util.List;
  * ∂e_{t,i}/∂b_k = -R^e_{t,i} F_{t,k}, so the mean is g_T(b) = d - C b with d = mean R^e and
  * C = mean R^e F', and GMM with weight W has the closed form b = (C'WC)^{-1} C'W d.
  */
-public final class LinearFactorErrors extends NamedErrors {
-    private final double[][] excessReturns; // [t][i]
+public final class LinearFactorErrors extends SdfErrors {
     private final double[][] factors; // [t][k]
 
     /**
@@ -21,24 +20,23 @@ public final class LinearFactorErrors extends NamedErrors {
      */
     public LinearFactorErrors(double[][] excessReturns, double[][] factors, List<String> assetNames,
             List<String> factorNames) {
-        super(MomentAlgebra.prefixed("b_", factorNames), assetNames);
-        if (excessReturns.length != factors.length) {
-            throw new IllegalArgumentException("returns have " + excessReturns.length + " rows but factors have "
-                    + factors.length);
-        }
-        this.excessReturns = MomentAlgebra.copyRows(excessReturns, assetNames().size(), "return");
+        super(MomentAlgebra.prefixed("b_", factorNames), assetNames, excessReturns, Payoff.EXCESS, List.of());
+        MomentAlgebra.requireRows(excessReturns.length, factors.length, "returns", "factors");
         this.factors = MomentAlgebra.copyRows(factors, factorNames.size(), "factor");
     }
 
-
-
-    @Override
-    public int observations() {
-        return excessReturns.length;
+    private LinearFactorErrors(LinearFactorErrors source, int[] rows) {
+        super(source, rows);
+        this.factors = pick(source.factors, rows);
     }
 
     @Override
-    public void discountFactor(double[] b, double[] out) {
+    protected LinearFactorErrors onRows(int[] rows) {
+        return new LinearFactorErrors(this, rows);
+    }
+
+    @Override
+    protected void sdf(double[] b, double[] out) {
         for (int t = 0; t < factors.length; t++) {
             double sdf = 1.0;
             for (int k = 0; k < b.length; k++) {
@@ -49,39 +47,16 @@ public final class LinearFactorErrors extends NamedErrors {
     }
 
     @Override
-    public void payoffs(double[] out) {
-        MomentAlgebra.flatten(excessReturns, out);
+    protected void sdfGradient(double[] b, double[][] out) {
+        for (int t = 0; t < factors.length; t++) {
+            for (int k = 0; k < b.length; k++) {
+                out[k][t] = -factors[t][k];
+            }
+        }
     }
 
     @Override
     public boolean isLinear() {
         return true;
-    }
-
-    @Override
-    public void errors(double[] b, double[] out) {
-        int n = assetNames().size();
-        double[] sdf = new double[excessReturns.length];
-        discountFactor(b, sdf);
-        for (int t = 0; t < excessReturns.length; t++) {
-            double[] r = excessReturns[t];
-            for (int i = 0; i < n; i++) {
-                out[t * n + i] = r[i] * sdf[t];
-            }
-        }
-    }
-
-    @Override
-    public void errorDerivatives(double[] b, double[][] out) {
-        int n = assetNames().size();
-        for (int t = 0; t < excessReturns.length; t++) {
-            double[] f = factors[t];
-            double[] r = excessReturns[t];
-            for (int k = 0; k < f.length; k++) {
-                for (int i = 0; i < n; i++) {
-                    out[k][t * n + i] = -r[i] * f[k];
-                }
-            }
-        }
     }
 }

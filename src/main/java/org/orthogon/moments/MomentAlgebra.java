@@ -13,16 +13,24 @@ public final class MomentAlgebra {
         int cols = matrix.numCols;
         DMatrixRMaj means = new DMatrixRMaj(cols, 1);
         double[] data = matrix.data;
+        double[] sums = means.data;
+        double[] row = new double[cols];
         for (int t = 0; t < rows; t++) {
-            int offset = t * cols;
-            for (int k = 0; k < cols; k++) {
-                means.data[k] += data[offset + k];
-            }
+            // a row copied out first: the add below then runs over two arrays at the same index, which
+            // the JIT vectorises; the order of the sums is unchanged
+            System.arraycopy(data, t * cols, row, 0, cols);
+            addTo(sums, row, cols);
         }
         for (int k = 0; k < cols; k++) {
-            means.data[k] /= rows;
+            sums[k] /= rows;
         }
         return means;
+    }
+
+    private static void addTo(double[] sums, double[] row, int cols) {
+        for (int k = 0; k < cols; k++) {
+            sums[k] += row[k];
+        }
     }
 
     /**

@@ -6,7 +6,7 @@ import org.ejml.data.DMatrixRMaj;
 /**
  * A set of moment conditions E[f_t(θ)] = 0 evaluated on one aligned sample.
  *
- * <p>Conventions (DESIGN.md section 3): the contributions form a T x K matrix F whose row t is
+ * <p>Conventions (Hansen 1982; docs/methods.md): the contributions form a T x K matrix F whose row t is
  * f_t(θ)'; the sample mean is g_T(θ) = (1/T) Σ_t f_t(θ); the Jacobian is D = ∂g_T/∂θ', a K x P
  * matrix. Implementations are pure: they never read files or print, and they never mutate the data
  * they were built from.
@@ -42,11 +42,21 @@ public interface MomentModel {
     DMatrixRMaj payoffs();
 
     /**
-     * The same moment conditions on observations [from, to) only (subsample and rolling-window fits).
-     * Every model built from a family supports it; a hand-made model that cannot be cut says so.
+     * The same moment conditions on observations [from, to) only (subsample and rolling-window fits),
+     * at a cost proportional to the window. Every model built from a family supports it; a hand-made
+     * model that cannot be cut says so.
      */
     default MomentModel rows(int from, int to) {
         throw new UnsupportedOperationException(getClass().getSimpleName() + " cannot be cut to a window of rows");
+    }
+
+    /**
+     * The same moment conditions on the observations {@code rows}, in the given order, repeats allowed
+     * (block-bootstrap resamples): row r of the result's contributions is row rows[r] of this model's.
+     * Every model built from a family supports it; a hand-made model that cannot be resampled says so.
+     */
+    default MomentModel select(int[] rows) {
+        throw new UnsupportedOperationException(getClass().getSimpleName() + " cannot select rows");
     }
 
     /**
@@ -94,11 +104,26 @@ public interface MomentModel {
         return parameterNames().size();
     }
 
+    // Repeated fits (subsample windows, bootstrap draws): evaluation without allocation, per-row Jacobians.
+
+    /**
+     * The T x K contributions f_t(θ)' written into {@code out}, reshaped to T x K, for inner loops that
+     * evaluate many θ. The default copies {@link #contributions(double[])}; models override it to
+     * write in place.
+     */
+    default void contributions(double[] theta, DMatrixRMaj out) {
+        DMatrixRMaj f = contributions(theta);
+        out.reshape(f.numRows, f.numCols);
+        System.arraycopy(f.data, 0, out.data, 0, f.getNumElements());
+    }
+
     /**
      * The Jacobian of every row, ∂f_t(θ)/∂θ': a T x (K·P) matrix whose row t holds the K x P matrix
-     * of observation t row-major, so that the mean Jacobian D is the mean of the rows. Finite-sample
-     * corrections of the two-step covariance (Windmeijer 2005) and the K statistic (Kleibergen 2005)
-     * need these per-observation derivatives, not only their mean.
+     * of observation t row-major, so that the mean Jacobian D is the mean of the rows. For a model linear
+     * in θ it does not depend on θ and f_t(θ) = f_t(0) + J_t θ, so window means of f_t(0) and J_t, and
+     * with them every subsample's closed-form estimate, come from running sums. Finite-sample corrections
+     * of the two-step covariance (Windmeijer 2005) and the K statistic (Kleibergen 2005) need these
+     * per-observation derivatives too.
      */
     default DMatrixRMaj rowJacobians(double[] theta) {
         throw new UnsupportedOperationException(getClass().getSimpleName() + " has no per-row Jacobians");

@@ -5,7 +5,9 @@ import java.util.List;
 /**
  * The unscaled pricing errors of one model family, observation by observation: e_t(θ), one column per
  * test asset, and their derivatives ∂e_t/∂θ_p. {@link ScaledMoments} turns them into GMM moments,
- * multiplying by instruments when there are any, so each family writes its economics once.
+ * multiplying by instruments when there are any, so each family writes its economics once. Families
+ * whose errors come from a stochastic discount factor extend {@link SdfErrors}, which derives all of
+ * this from m_t(θ) and its gradient.
  */
 public interface ObservationErrors {
 
@@ -47,6 +49,15 @@ public interface ObservationErrors {
 
     /** True when e_t(θ) is affine in θ. */
     boolean isLinear();
+
+    /**
+     * The same errors on the observations {@code rows}, in the given order, repeats allowed (a
+     * subsample, a window, or a bootstrap resample). Only the selected rows are copied, so the cost is
+     * proportional to {@code rows.length}, not to the full sample.
+     *
+     * @throws IllegalArgumentException if a row is outside 0..T-1 or no row is given
+     */
+    ObservationErrors select(int[] rows);
 
     /**
      * The errors over which the Hansen-Jagannathan distance is taken: these errors (the default), a

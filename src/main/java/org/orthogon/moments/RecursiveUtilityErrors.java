@@ -25,17 +25,16 @@ import java.util.List;
  * so an optimizer that wanders to ψ &le; 0 gets finite values (economically meaningless ones, which
  * the estimate then shows) rather than an exception.
  *
- * <p>Derivatives, with ln m = θ ln β - κ ln g + (θ - 1) ln R_w and ∂e_i/∂x = m R_i ∂ln m/∂x:
+ * <p>Derivatives, with ln m = θ ln β - κ ln g + (θ - 1) ln R_w and ∂m/∂x = m ∂ln m/∂x:
  * ∂ln m/∂β = θ/β; ∂θ/∂γ = -ψ/(ψ - 1), ∂κ/∂γ = -1/(ψ - 1); ∂θ/∂ψ = ∂κ/∂ψ = -(1 - γ)/(ψ - 1)²; so
  * ∂ln m/∂γ = ∂θ/∂γ (ln β + ln R_w) - ∂κ/∂γ ln g and ∂ln m/∂ψ = ∂θ/∂ψ (ln β + ln R_w - ln g).
  */
-public final class RecursiveUtilityErrors extends NamedErrors {
+public final class RecursiveUtilityErrors extends SdfErrors {
     public static final List<String> PARAMETERS = List.of("beta", "gamma", "psi");
 
     /** ψ closer to 1 than this (with γ ≠ 1) is refused: θ would exceed 1e8 and m overflow. */
     public static final double UNIT_EIS_TOLERANCE = 1e-8;
 
-    private final double[][] grossReturns; // [t][i], wealth proxy appended as the last column
     private final double[] logGrowth;
     private final double[] logWealthReturn;
 
@@ -48,19 +47,12 @@ public final class RecursiveUtilityErrors extends NamedErrors {
      */
     public RecursiveUtilityErrors(double[][] grossReturns, double[] consumptionGrowth, double[] wealthReturn,
             List<String> assetNames, String wealthName) {
-        super(PARAMETERS, MomentAlgebra.concat(assetNames, List.of(wealthName)));
+        super(PARAMETERS, MomentAlgebra.concat(assetNames, List.of(wealthName)),
+                withWealth(grossReturns, wealthReturn, assetNames, wealthName), Payoff.GROSS, List.of());
         MomentAlgebra.requireRows(grossReturns.length, consumptionGrowth.length, "returns", "consumption growth");
-        MomentAlgebra.requireRows(grossReturns.length, wealthReturn.length, "returns", "wealth returns");
-        if (assetNames.contains(wealthName)) {
-            throw new IllegalArgumentException("the wealth proxy " + wealthName
-                    + " is also among the test assets; its Euler equation is added once, automatically");
-        }
-        int n = assetNames.size();
-        double[][] assets = MomentAlgebra.copyRows(grossReturns, n, "return");
-        this.grossReturns = new double[assets.length][];
-        this.logGrowth = new double[assets.length];
-        this.logWealthReturn = new double[assets.length];
-        for (int t = 0; t < assets.length; t++) {
+        this.logGrowth = new double[grossReturns.length];
+        this.logWealthReturn = new double[grossReturns.length];
+        for (int t = 0; t < grossReturns.length; t++) {
             if (!(consumptionGrowth[t] > 0)) {
                 throw new IllegalArgumentException("consumption growth must be a positive gross rate, found "
                         + consumptionGrowth[t] + " in row " + t);
@@ -69,13 +61,39 @@ public final class RecursiveUtilityErrors extends NamedErrors {
                 throw new IllegalArgumentException("the wealth return must be a positive gross return, found "
                         + wealthReturn[t] + " in row " + t);
             }
-            double[] row = new double[n + 1];
-            System.arraycopy(assets[t], 0, row, 0, n);
-            row[n] = wealthReturn[t];
-            this.grossReturns[t] = row;
             this.logGrowth[t] = Math.log(consumptionGrowth[t]);
             this.logWealthReturn[t] = Math.log(wealthReturn[t]);
         }
+    }
+
+    private RecursiveUtilityErrors(RecursiveUtilityErrors source, int[] rows) {
+        super(source, rows);
+        this.logGrowth = pick(source.logGrowth, rows);
+        this.logWealthReturn = pick(source.logWealthReturn, rows);
+    }
+
+    /** The test assets' returns with the wealth proxy appended as the last priced asset. */
+    private static double[][] withWealth(double[][] grossReturns, double[] wealthReturn, List<String> assetNames,
+            String wealthName) {
+        MomentAlgebra.requireRows(grossReturns.length, wealthReturn.length, "returns", "wealth returns");
+        if (assetNames.contains(wealthName)) {
+            throw new IllegalArgumentException("the wealth proxy " + wealthName
+                    + " is also among the test assets; its Euler equation is added once, automatically");
+        }
+        int n = assetNames.size();
+        double[][] assets = MomentAlgebra.copyRows(grossReturns, n, "return");
+        double[][] rows = new double[assets.length][];
+        for (int t = 0; t < assets.length; t++) {
+            double[] row = java.util.Arrays.copyOf(assets[t], n + 1);
+            row[n] = wealthReturn[t];
+            rows[t] = row;
+        }
+        return rows;
+    }
+
+    @Override
+    protected RecursiveUtilityErrors onRows(int[] rows) {
+        return new RecursiveUtilityErrors(this, rows);
     }
 
     /**
@@ -104,50 +122,18 @@ public final class RecursiveUtilityErrors extends NamedErrors {
         return psi - 1.0;
     }
 
-
-
     @Override
-    public int observations() {
-        return grossReturns.length;
-    }
-
-    @Override
-    public void payoffs(double[] out) {
-        MomentAlgebra.flatten(grossReturns, out);
-    }
-
-    @Override
-    public void discountFactor(double[] parameters, double[] out) {
+    protected void sdf(double[] parameters, double[] out) {
         double logBeta = Math.log(requirePositiveBeta(parameters[0]));
         double theta = theta(parameters[1], parameters[2]);
         double kappa = growthExponent(parameters[1], parameters[2]);
-        for (int t = 0; t < grossReturns.length; t++) {
+        for (int t = 0; t < logGrowth.length; t++) {
             out[t] = Math.exp(logSdf(theta, kappa, logBeta, t));
         }
     }
 
     @Override
-    public boolean isLinear() {
-        return false;
-    }
-
-    @Override
-    public void errors(double[] parameters, double[] out) {
-        double logBeta = Math.log(requirePositiveBeta(parameters[0]));
-        double theta = theta(parameters[1], parameters[2]);
-        double kappa = growthExponent(parameters[1], parameters[2]);
-        int n = assetNames.size();
-        for (int t = 0; t < grossReturns.length; t++) {
-            double sdf = Math.exp(logSdf(theta, kappa, logBeta, t));
-            double[] r = grossReturns[t];
-            for (int i = 0; i < n; i++) {
-                out[t * n + i] = sdf * r[i] - 1.0;
-            }
-        }
-    }
-
-    @Override
-    public void errorDerivatives(double[] parameters, double[][] out) {
+    protected void sdfGradient(double[] parameters, double[][] out) {
         double beta = requirePositiveBeta(parameters[0]);
         double gamma = parameters[1];
         double psi = parameters[2];
@@ -158,21 +144,19 @@ public final class RecursiveUtilityErrors extends NamedErrors {
         double kappaByGamma = -1.0 / (psi - 1.0);
         // θ and κ = θ/ψ have the same derivative in ψ, -(1 - γ)/(ψ - 1)².
         double byPsiOfBoth = -(1.0 - gamma) / ((psi - 1.0) * (psi - 1.0));
-        int n = assetNames.size();
-        for (int t = 0; t < grossReturns.length; t++) {
+        double byBeta = theta / beta;
+        for (int t = 0; t < logGrowth.length; t++) {
             double sdf = Math.exp(logSdf(theta, kappa, logBeta, t));
             double priceTerms = logBeta + logWealthReturn[t];
-            double byBeta = theta / beta;
-            double byGamma = thetaByGamma * priceTerms - kappaByGamma * logGrowth[t];
-            double byPsi = byPsiOfBoth * (priceTerms - logGrowth[t]);
-            double[] r = grossReturns[t];
-            for (int i = 0; i < n; i++) {
-                double priced = sdf * r[i];
-                out[0][t * n + i] = priced * byBeta;
-                out[1][t * n + i] = priced * byGamma;
-                out[2][t * n + i] = priced * byPsi;
-            }
+            out[0][t] = sdf * byBeta;
+            out[1][t] = sdf * (thetaByGamma * priceTerms - kappaByGamma * logGrowth[t]);
+            out[2][t] = sdf * (byPsiOfBoth * (priceTerms - logGrowth[t]));
         }
+    }
+
+    @Override
+    public boolean isLinear() {
+        return false;
     }
 
     private double logSdf(double theta, double kappa, double logBeta, int t) {

@@ -69,15 +69,43 @@ public final class ScaledMoments implements MomentModel {
     }
 
     /**
-     * The same moments on observations [from, to) only, for subsample and rolling-window fits; the
-     * instruments are cut to the same rows.
+     * The same moments on observations [from, to) only, for subsample and rolling-window fits: the
+     * family's data and the instruments are sliced to those rows, so the cost is proportional to the
+     * window, not to the full sample.
+     *
+     * @throws IllegalArgumentException unless 0 ≤ from &lt; to ≤ T
      */
+    @Override
     public ScaledMoments rows(int from, int to) {
-        RowWindow window = new RowWindow(errors, from, to);
-        if (instruments == null) {
-            return unscaled(window);
+        if (from < 0 || to > observations() || to - from < 1) {
+            throw new IllegalArgumentException("window [" + from + ", " + to + ") is not inside the "
+                    + observations() + " observations");
         }
-        return scaled(window, java.util.Arrays.copyOfRange(instruments, from, to), instrumentNames);
+        int[] rows = new int[to - from];
+        for (int r = 0; r < rows.length; r++) {
+            rows[r] = from + r;
+        }
+        return select(rows);
+    }
+
+    /**
+     * The same moments on the observations {@code rows}, in the given order, repeats allowed (a
+     * block-bootstrap resample): row r of the result is row rows[r] of this model, the instruments
+     * selected alongside, so a row chosen twice contributes twice to every sample mean.
+     *
+     * @throws IllegalArgumentException if a row is outside 0..T-1 or no row is given
+     */
+    @Override
+    public ScaledMoments select(int[] rows) {
+        ObservationErrors selected = errors.select(rows);
+        if (instruments == null) {
+            return new ScaledMoments(selected, null, instrumentNames);
+        }
+        double[][] z = new double[rows.length][];
+        for (int r = 0; r < rows.length; r++) {
+            z[r] = instruments[rows[r]];
+        }
+        return new ScaledMoments(selected, z, instrumentNames);
     }
 
     @Override
@@ -107,6 +135,21 @@ public final class ScaledMoments implements MomentModel {
         double[] raw = new double[rows * assets];
         errors.errors(theta, raw);
         return scaledRows(raw);
+    }
+
+    @Override
+    public void contributions(double[] theta, DMatrixRMaj out) {
+        checkLength(theta);
+        int rows = observations();
+        if (instruments == null) {
+            out.reshape(rows, assets);
+            errors.errors(theta, out.data);
+            return;
+        }
+        double[] raw = new double[rows * assets];
+        errors.errors(theta, raw);
+        out.reshape(rows, assets * instrumentCount);
+        kronecker(raw, out.data);
     }
 
     /**

@@ -5,13 +5,15 @@ import java.util.Locale;
 /**
  * One table cell: either text, or a number with the text it displays. Writers keep the two apart so
  * that numbers align right, CSV keeps full precision, and only text is escaped against spreadsheet
- * formulas.
+ * formulas. A text cell may name a parameter ({@link #parameter}), which paper-style writers set as
+ * mathematics (β, b_MKT as b with a subscript) and the others keep as the plain name.
  *
- * @param text    what a reader sees ("n/a" for a number that does not exist)
- * @param value   the number behind the text; NaN for text cells and for missing numbers
- * @param numeric true for a number column entry (including a missing number)
+ * @param text      what a reader sees ("n/a" for a number that does not exist)
+ * @param value     the number behind the text; NaN for text cells and for missing numbers
+ * @param numeric   true for a number column entry (including a missing number)
+ * @param parameter true for a text cell that names a model parameter
  */
-public record Cell(String text, double value, boolean numeric) {
+public record Cell(String text, double value, boolean numeric, boolean parameter) {
     /** What a missing number displays. */
     public static final String MISSING = "n/a";
 
@@ -19,6 +21,16 @@ public record Cell(String text, double value, boolean numeric) {
         if (text == null) {
             throw new IllegalArgumentException("a cell's text may not be null");
         }
+    }
+
+    /** A cell that names no parameter. */
+    public Cell(String text, double value, boolean numeric) {
+        this(text, value, numeric, false);
+    }
+
+    /** A text cell holding a parameter's name, e.g. "beta" or "b_MKT". */
+    public static Cell parameter(String name) {
+        return new Cell(name, Double.NaN, false, true);
     }
 
     /** A text cell. */

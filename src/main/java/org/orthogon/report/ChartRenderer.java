@@ -48,6 +48,10 @@ public final class ChartRenderer {
     public static final int WIDTH = 760;
     /** Default image height in pixels. */
     public static final int HEIGHT = 460;
+    /** Side of a square chart: one that draws a 45-degree line, which only a square plot shows at 45 degrees. */
+    public static final int SQUARE = 560;
+    /** PNG files carry this many pixels per layout pixel: a 760-pixel-wide chart prints sharp at column width. */
+    public static final int PRINT_SCALE = 2;
 
     /** Dark slate for points and lines: prints as near-black. */
     static final Color INK = new Color(0x23, 0x33, 0x44);
@@ -72,10 +76,32 @@ public final class ChartRenderer {
         org.jfree.chart.text.TextUtils.setUseDrawRotatedStringWorkaround(false);
     }
 
+    /** The layout width of {@code chart}: square for a chart with a 45-degree line, wide otherwise. */
+    public static int width(Chart chart) {
+        return chart instanceof Chart.Scatter ? SQUARE : WIDTH;
+    }
+
+    /** The layout height of {@code chart}. */
+    public static int height(Chart chart) {
+        return chart instanceof Chart.Scatter ? SQUARE : HEIGHT;
+    }
+
     /** The chart as PNG bytes of the given size. */
     public static byte[] png(Chart chart, int width, int height) {
+        return png(chart, width, height, 1);
+    }
+
+    /**
+     * The chart laid out at {@code width} x {@code height} and drawn {@code scale} times as many pixels
+     * each way: the same picture as the SVG, at print resolution.
+     */
+    public static byte[] png(Chart chart, int width, int height, int scale) {
         headless();
-        BufferedImage image = build(chart).createBufferedImage(width, height);
+        BufferedImage image = new BufferedImage(width * scale, height * scale, BufferedImage.TYPE_INT_RGB);
+        java.awt.Graphics2D g2 = image.createGraphics();
+        g2.scale(scale, scale);
+        build(chart).draw(g2, new java.awt.geom.Rectangle2D.Double(0, 0, width, height));
+        g2.dispose();
         ByteArrayOutputStream bytes = new ByteArrayOutputStream();
         try {
             ImageIO.write(image, "png", bytes);

@@ -1,7 +1,5 @@
 package org.orthogon.report;
 
-import org.orthogon.gmm.ManyMoments;
-
 import java.nio.file.Path;
 import java.nio.file.Paths;
 import java.util.ArrayList;
@@ -10,6 +8,8 @@ import java.util.Locale;
 import org.orthogon.spec.InputSummary;
 import org.orthogon.spec.PreparedRun;
 import org.orthogon.spec.RunSpec;
+import org.orthogon.spec.StabilitySpec;
+import org.orthogon.spec.Warning;
 
 /** What `check` prints: the sample, the sizes T, N, K, P, the inputs and every warning, without estimating. */
 public final class CheckReport {
@@ -17,21 +17,10 @@ public final class CheckReport {
     }
 
     /**
-     * The warnings a check can give before any estimation, among them the many-moments rule of
-     * {@link ManyMoments} with the model file's long-run choices.
+     * The check's report; {@code stability} is the planned [stability] run, or null when the model file
+     * has no [stability] section.
      */
-    public static List<String> warnings(RunSpec spec, PreparedRun prepared) {
-        List<String> warnings = new ArrayList<>();
-        int k = prepared.moments().momentCount();
-        int t = prepared.sample().observations();
-        ManyMoments.warning(k, t, spec.estimation().longRunOptions()).ifPresent(warnings::add);
-        if (k == prepared.moments().parameterCount()) {
-            warnings.add("the model is exactly identified (K = P): there will be no overidentifying restrictions to test");
-        }
-        return warnings;
-    }
-
-    public static String render(RunSpec spec, PreparedRun prepared) {
+    public static String render(RunSpec spec, PreparedRun prepared, StabilitySpec.Plan stability) {
         var e = spec.estimation();
         int k = prepared.moments().momentCount();
         int p = prepared.moments().parameterCount();
@@ -42,13 +31,23 @@ public final class CheckReport {
                 .append(String.join(", ", prepared.moments().parameterNames())).append('\n');
         out.append(String.format(Locale.ROOT, "  sample      %s to %s, T = %d %s observations%n", prepared.sample().start(),
                 prepared.sample().end(), prepared.sample().observations(), prepared.sample().frequency()));
-        out.append(String.format(Locale.ROOT, "  sizes       N = %d test assets, K = %d moments, P = %d parameters, "
-                + "K - P = %d overidentifying restrictions%n", prepared.assets().size(), k, p, k - p));
-        out.append("  returns     ").append(spec.data().returnsKind()).append(", units ").append(spec.data().units())
-                .append(" (every return-like series passed the unit and kind checks)\n");
+        out.append(String.format(Locale.ROOT, "  sizes       N = %s, K = %s, P = %s, K - P = %s%n",
+                ConsoleReport.count(prepared.assets().size(), "test asset"), ConsoleReport.count(k, "moment"),
+                ConsoleReport.count(p, "parameter"), ConsoleReport.count(k - p, "overidentifying restriction")));
+        out.append("  returns     ").append(spec.data().returnsKind().id()).append(", units ")
+                .append(spec.data().units().id()).append(" (every return-like series passed the unit and kind checks)\n");
         out.append("  estimation  ").append(e.method().id()).append(", kernel ").append(e.kernel().id()).append(", ")
                 .append(e.bandwidthLabel()).append(e.centered() ? ", centered" : ", uncentered")
-                .append(e.prewhiten() ? ", prewhitened" : "").append("\n\n");
+                .append(e.prewhiten() ? ", prewhitened" : "").append("\n");
+        if (stability != null) {
+            StabilitySpec s = spec.stability();
+            out.append(String.format(Locale.ROOT, "  stability   %d split%s, %d candidate break dates (trimming %s)%s%n",
+                    stability.splitIndices().size(), stability.splitIndices().size() == 1 ? "" : "s",
+                    stability.candidateCount(), s.trimming(), s.window().map(w -> String.format(Locale.ROOT,
+                            ", %d %s windows of %d observations", stability.windowCount(),
+                            s.expanding() ? "expanding" : "rolling", w)).orElse("")));
+        }
+        out.append('\n');
         TextTable inputs = new TextTable(List.of("role", "file", "frequency", "first", "last", "rows", "columns",
                 "missing"));
         for (InputSummary input : prepared.inputs()) {
@@ -59,8 +58,12 @@ public final class CheckReport {
         for (String note : prepared.notes()) {
             out.append("note: ").append(note).append('\n');
         }
-        for (String warning : warnings(spec, prepared)) {
-            out.append("WARNING: ").append(warning).append('\n');
+        List<Warning> warnings = new ArrayList<>(prepared.warnings());
+        if (stability != null) {
+            warnings.addAll(stability.warnings());
+        }
+        for (Warning warning : warnings) {
+            out.append("WARNING ").append(warning).append('\n');
         }
         return out.toString();
     }

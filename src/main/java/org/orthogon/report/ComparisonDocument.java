@@ -18,13 +18,17 @@ public final class ComparisonDocument {
     }
 
     public static Report build(ModelComparison.Result result, String sampleLine) {
-        return build(result, sampleLine, null);
+        return build(result, sampleLine, null, "compare");
     }
 
-    /** As {@link #build(ModelComparison.Result, String)}, with the comparison at the common weight when given. */
-    public static Report build(ModelComparison.Result result, String sampleLine, CommonWeightReport common) {
+    /**
+     * The comparison's document, with the comparison at the common weight when {@code common} is given;
+     * {@code key} labels its LaTeX tables (the output folder's name).
+     */
+    public static Report build(ModelComparison.Result result, String sampleLine, CommonWeightReport common,
+            String key) {
         List<ModelSummary> models = result.models();
-        Report.Builder report = Report.builder("Model comparison")
+        Report.Builder report = Report.builder("Model comparison").key(key)
                 .subtitle("The same test assets, " + sampleLine);
         for (int m = 0; m < models.size(); m++) {
             ModelSummary summary = models.get(m);
@@ -34,7 +38,7 @@ public final class ComparisonDocument {
         report.section("Parameters").table(parameters(models));
         report.section("Tests and cross-sectional fit").table(tests(models));
         if (!result.nestedTests().isEmpty()) {
-            report.table(nested(result.nestedTests()));
+            report.table(nested(result.nestedTests(), models));
         }
         report.section("Realised against model-implied means");
         for (int m = 0; m < models.size(); m++) {
@@ -72,7 +76,7 @@ public final class ComparisonDocument {
         Set<String> names = new LinkedHashSet<>();
         models.forEach(summary -> summary.fit().parameters().forEach(p -> names.add(p.name())));
         for (String name : names) {
-            List<Cell> row = new ArrayList<>(List.of(Cell.text(name)));
+            List<Cell> row = new ArrayList<>(List.of(Cell.parameter(name)));
             for (ModelSummary summary : models) {
                 ParameterEstimate p = summary.fit().parameters().stream().filter(e -> e.name().equals(name))
                         .findFirst().orElse(null);
@@ -81,13 +85,32 @@ public final class ComparisonDocument {
             }
             table.row(row);
         }
-        return table.note("Standard errors in parentheses.").build();
+        return table.note("Standard errors in parentheses.").note(legend(models)).build();
+    }
+
+    /** "(1) title; (2) title.": the short labels the columns and rows use, so each table stands alone. */
+    static String legend(List<ModelSummary> models) {
+        StringBuilder legend = new StringBuilder("Models: ");
+        for (int m = 0; m < models.size(); m++) {
+            legend.append(m == 0 ? "" : "; ").append("(").append(m + 1).append(") ").append(models.get(m).title());
+        }
+        return legend.append('.').toString();
+    }
+
+    /** The short label "(n)" of the model with this title, or the title when no model has it. */
+    private static String label(List<ModelSummary> models, String title) {
+        for (int m = 0; m < models.size(); m++) {
+            if (models.get(m).title().equals(title)) {
+                return "(" + (m + 1) + ")";
+            }
+        }
+        return title;
     }
 
     static Table tests(List<ModelSummary> models) {
         Table.Builder table = Table.builder("comparison-tests", "Overidentification and cross-sectional fit",
-                "model", "test", "statistic", "df", "p-value", "HJ distance", "HJ p-value", "cross-sectional R2",
-                "mean |alpha|", "RMS alpha");
+                "model", "test", "statistic", "df", "p-value", "HJ distance", "HJ p-value", "cross-sectional R²",
+                "mean |α|", "RMS α");
         for (int m = 0; m < models.size(); m++) {
             ModelSummary summary = models.get(m);
             ChiSquareTest test = summary.fit().overidentification();
@@ -101,18 +124,19 @@ public final class ComparisonDocument {
         }
         return table.note("HJ distance: min over the parameters of sqrt(g' G^{-1} g), G the second moments of the "
                 + "payoffs (Hansen and Jagannathan 1997); p-value from its simulated weighted chi-square limit.")
-                .note("alpha: the pricing error in expected-return units, (E_T[m x] - price) / E_T[m]; R2 = 1 - "
-                + "Var(alpha) / Var(realised mean) across the test assets.").build();
+                .note("α: the pricing error in expected-return units, (E_T[m x] - price) / E_T[m]; R² = 1 - "
+                + "Var(α) / Var(realised mean) across the test assets.").note(legend(models)).build();
     }
 
-    static Table nested(List<NestedTest> tests) {
+    static Table nested(List<NestedTest> tests, List<ModelSummary> models) {
         Table.Builder table = Table.builder("nested-tests", "Nested models: difference of J statistics",
                 "restricted", "unrestricted", "statistic", "df", "p-value");
         for (NestedTest test : tests) {
-            table.row(Cell.text(test.restricted()), Cell.text(test.unrestricted()), Cell.fixed(test.test().statistic(), 3),
-                    Cell.count(test.test().df()), Cell.fixed(test.test().pValue(), 4));
+            table.row(Cell.text(label(models, test.restricted())), Cell.text(label(models, test.unrestricted())),
+                    Cell.fixed(test.test().statistic(), 3), Cell.count(test.test().df()),
+                    Cell.fixed(test.test().pValue(), 4));
         }
         return table.note("Both models estimated with the unrestricted model's efficient weight (Newey and West 1987); "
-                + "chi-square with the number of restrictions as degrees of freedom.").build();
+                + "chi-square with the number of restrictions as degrees of freedom.").note(legend(models)).build();
     }
 }

@@ -86,7 +86,7 @@ public final class ComparisonReport {
         return row;
     }
 
-    /** {"models": [results objects with the cross-sectional fit], "nested_tests": [...]} (DESIGN.md section 4). */
+    /** {"models": [results objects with the cross-sectional fit], "nested_tests": [...]} (docs/output.md). */
     public static ObjectNode json(ModelComparison.Result result, List<ObjectNode> fitObjects) {
         ObjectNode root = JsonResults.newObject();
         ArrayNode models = root.putArray("models");

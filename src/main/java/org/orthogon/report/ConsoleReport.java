@@ -10,6 +10,7 @@ import org.orthogon.gmm.ParameterEstimate;
 import org.orthogon.gmm.PricingError;
 import org.orthogon.longrun.Kernel;
 import org.orthogon.spec.FittedRun;
+import org.orthogon.spec.PreparedRun;
 import org.orthogon.spec.RunSpec;
 import org.orthogon.spec.SampleInfo;
 
@@ -37,9 +38,9 @@ public final class ConsoleReport {
             List<FittedRun.RestrictionTest> restrictions, double[] windmeijer) {
         StringBuilder out = new StringBuilder();
         out.append(spec.title()).append('\n');
-        out.append(String.format(Locale.ROOT, "  %s SDF, %s GMM, %s %s to %s (T = %d), %d moments, %d parameters%n",
+        out.append(String.format(Locale.ROOT, "  %s SDF, %s GMM, %s %s to %s (T = %d), %s, %s%n",
                 spec.model().family().id(), fit.method().id(), sample.frequency(), sample.start(), sample.end(),
-                sample.observations(), fit.momentCount(), fit.parameters().size()));
+                sample.observations(), count(fit.momentCount(), "moment"), count(fit.parameters().size(), "parameter")));
         out.append("  long-run covariance: ").append(describeLongRun(fit)).append("\n\n");
 
         out.append("Parameters\n");
@@ -74,8 +75,7 @@ public final class ConsoleReport {
         out.append(String.format(Locale.ROOT, "  statistic %s, %d degrees of freedom, p-value %s%n",
                 fixed(over.statistic(), 3), over.df(), fixed(over.pValue(), 4)));
         fit.hj().ifPresent(hj -> out.append(String.format(Locale.ROOT, "Hansen-Jagannathan distance %s, p-value %s "
-                + "(simulated weighted chi-square limit, seed %d, %d draws)%n", number(hj.value()), fixed(hj.pValue(), 4),
-                hj.seed(), hj.draws())));
+                + "(%s)%n", number(hj.value()), fixed(hj.pValue(), 4), hj.pValueSource())));
         out.append('\n');
 
         out.append("Pricing errors (sample mean of each moment at the estimate)\n");
@@ -105,6 +105,28 @@ public final class ConsoleReport {
         }
         out.append('\n').append(Caution.TEXT).append('\n');
         return out.toString();
+    }
+
+    /**
+     * The summary of a fit of prepared moments: the data-preparation notes and the warnings found while
+     * preparing (many moments, exact identification) come with it.
+     */
+    public static String render(RunSpec spec, PreparedRun prepared, GmmFit fit,
+            List<FittedRun.RestrictionTest> restrictions) {
+        return render(spec, prepared, fit, restrictions, null);
+    }
+
+    /** As above, with Windmeijer's corrected standard errors in a column when {@code windmeijer} is not null. */
+    public static String render(RunSpec spec, PreparedRun prepared, GmmFit fit,
+            List<FittedRun.RestrictionTest> restrictions, double[] windmeijer) {
+        String text = render(spec, prepared.sample(), fit, prepared.notes(), restrictions, windmeijer);
+        if (prepared.warnings().isEmpty()) {
+            return text;
+        }
+        StringBuilder warnings = new StringBuilder();
+        prepared.warnings().forEach(w -> warnings.append("WARNING ").append(w).append('\n'));
+        int caution = text.lastIndexOf(Caution.TEXT);
+        return text.substring(0, caution) + warnings + "\n" + text.substring(caution);
     }
 
     /** The risk premia of the demeaned linear SDF, λ = Σ_F b, ending in a newline. */
@@ -139,6 +161,11 @@ public final class ConsoleReport {
         }
         return String.format(Locale.ROOT, "%s kernel, bandwidth %s, %s%s", lr.kernel().id(), fixed(lr.bandwidth(), 2),
                 centering, lr.prewhitened() ? ", VAR(1) prewhitened" : "");
+    }
+
+    /** "1 parameter", "2 parameters": a count with its noun in the right number. */
+    static String count(long n, String noun) {
+        return n + " " + noun + (n == 1 ? "" : "s");
     }
 
     /** Six significant digits, plain notation where it stays readable. */

@@ -10,6 +10,8 @@ import org.orthogon.gmm.GmmFit;
 import org.orthogon.gmm.ParameterEstimate;
 import org.orthogon.gmm.PricingError;
 import org.orthogon.analysis.CrossSectionFit;
+import org.orthogon.analysis.SensitivityGrid;
+import org.orthogon.spec.FittedRun;
 import org.orthogon.spec.PreparedRun;
 import org.orthogon.spec.RunSpec;
 import tools.jackson.databind.node.ObjectNode;
@@ -23,35 +25,44 @@ public final class FitReport {
     private FitReport() {
     }
 
-    /** The document of one fit. */
+    /** The document of one fit, without restriction tests or sensitivity grid. */
     public static Report build(RunSpec spec, PreparedRun prepared, GmmFit fit) {
-        return build(spec, prepared, fit, new Extras(null, null, null));
-    }
-
-    /** The document of one fit, with the risk premia of a demeaned linear SDF when given. */
-    public static Report build(RunSpec spec, PreparedRun prepared, GmmFit fit,
-            org.orthogon.spec.FittedRun.RiskPremiumEstimates premia) {
-        return build(spec, prepared, fit, new Extras(premia, null, null));
+        return build(spec, prepared, fit, null, List.of(), List.of());
     }
 
     /**
-     * What a fit may add to its report, each null when absent: the risk premia of a demeaned linear SDF,
-     * Windmeijer's corrected standard errors, the weak-identification-robust sets.
+     * What a fit may add to its report beyond the estimates, each null when absent: Windmeijer's corrected
+     * standard errors, the weak-identification-robust sets.
      */
-    public record Extras(org.orthogon.spec.FittedRun.RiskPremiumEstimates premia,
-            org.orthogon.gmm.WindmeijerCorrection.Result windmeijer, org.orthogon.robust.RobustSets.Analysis robust) {
+    public record Extras(org.orthogon.gmm.WindmeijerCorrection.Result windmeijer,
+            org.orthogon.robust.RobustSets.Analysis robust) {
+        /** Nothing extra. */
+        public static final Extras NONE = new Extras(null, null);
     }
 
-    /** The document of one fit with its extras. */
-    public static Report build(RunSpec spec, PreparedRun prepared, GmmFit fit, Extras extras) {
-        var premia = extras.premia();
+    /**
+     * The document of one fit with the risk premia of a demeaned linear SDF (null when there are none), the
+     * Wald tests of its restrictions and the rows of its kernel-and-bandwidth sensitivity grid (either list
+     * may be empty).
+     */
+    public static Report build(RunSpec spec, PreparedRun prepared, GmmFit fit, FittedRun.RiskPremiumEstimates premia,
+            List<FittedRun.RestrictionTest> restrictions, List<SensitivityGrid.SensitivityRow> sensitivity) {
+        return build(spec, prepared, fit, premia, restrictions, sensitivity, Extras.NONE);
+    }
+
+    /** As above, with Windmeijer's standard errors and the robust sets when {@code extras} holds them. */
+    public static Report build(RunSpec spec, PreparedRun prepared, GmmFit fit, FittedRun.RiskPremiumEstimates premia,
+            List<FittedRun.RestrictionTest> restrictions, List<SensitivityGrid.SensitivityRow> sensitivity,
+            Extras extras) {
         var sample = prepared.sample();
-        Report.Builder report = Report.builder(spec.title())
+        Report.Builder report = Report.builder(spec.title()).key(spec.modelFile().getFileName().toString()
+                .replaceFirst("\\.toml$", ""))
                 .subtitle(String.format(Locale.ROOT, "%s SDF, %s GMM; %s sample %s to %s, T = %d",
                         spec.model().family().id(), fit.method().id(), sample.frequency(), sample.start(),
                         sample.end(), sample.observations()))
-                .subtitle(String.format(Locale.ROOT, "N = %d test assets, K = %d moments, P = %d parameters",
-                        prepared.assets().size(), fit.momentCount(), fit.parameters().size()))
+                .subtitle("N = " + ConsoleReport.count(prepared.assets().size(), "test asset") + ", K = "
+                        + ConsoleReport.count(fit.momentCount(), "moment") + ", P = "
+                        + ConsoleReport.count(fit.parameters().size(), "parameter"))
                 .subtitle("Long-run covariance: " + ConsoleReport.describeLongRun(fit));
         report.section("Parameters").table(parameters(fit, extras.windmeijer() == null ? null
                 : extras.windmeijer().stdErrors()));
@@ -64,6 +75,13 @@ public final class FitReport {
         if (means != null) {
             report.chart(scatter(prepared.assets(), means));
         }
+        if (!restrictions.isEmpty()) {
+            report.section("Linear restrictions").table(restrictions(restrictions));
+        }
+        if (!sensitivity.isEmpty()) {
+            report.section("Sensitivity to the long-run covariance")
+                    .table(SensitivityReport.table(sensitivity, fit.parameterNames()));
+        }
         if (extras.robust() != null) {
             RobustSetsReport.addSection(report, extras.robust());
         }
@@ -71,7 +89,22 @@ public final class FitReport {
             report.section("Data preparation");
             prepared.notes().forEach(report::paragraph);
         }
-        return report.warnings(fit.warnings()).build();
+        List<String> warnings = new ArrayList<>();
+        prepared.warnings().forEach(warning -> warnings.add(warning.text()));
+        warnings.addAll(fit.warnings());
+        return report.warnings(warnings).build();
+    }
+
+    /** The Wald tests of the model file's and the command line's linear restrictions. */
+    static Table restrictions(List<FittedRun.RestrictionTest> tests) {
+        Table.Builder table = Table.builder("restrictions", "Wald tests of linear restrictions", "restrictions",
+                "statistic", "df", "p-value");
+        for (FittedRun.RestrictionTest test : tests) {
+            table.row(Cell.text(test.restrictions()), Cell.fixed(test.test().statistic(), 3),
+                    Cell.count(test.test().df()), Cell.fixed(test.test().pValue(), 4));
+        }
+        return table.note("Wald statistics with the reported parameter covariance; chi-square with one degree of "
+                + "freedom per restriction.").build();
     }
 
     /**
@@ -82,8 +115,11 @@ public final class FitReport {
      * @return the folder written
      */
     public static Path writeFolder(Path target, boolean overwrite, ObjectNode results, RunSpec spec,
-            PreparedRun prepared, GmmFit fit, Extras extras, Manifest.Run run) {
-        return ReportFiles.publish(target, overwrite, build(spec, prepared, fit, extras), results, run, List.of(spec),
+            PreparedRun prepared, GmmFit fit, FittedRun.RiskPremiumEstimates premia,
+            List<FittedRun.RestrictionTest> restrictions, List<SensitivityGrid.SensitivityRow> sensitivity,
+            Extras extras, Manifest.Run run) {
+        return ReportFiles.publish(target, overwrite, build(spec, prepared, fit, premia, restrictions, sensitivity,
+                extras), results, run, List.of(spec),
                 List.of(prepared.inputs()));
     }
 
@@ -105,7 +141,7 @@ public final class FitReport {
         List<ConfidenceInterval> intervals = fit.confidenceIntervals();
         for (int i = 0; i < fit.parameters().size(); i++) {
             ParameterEstimate p = fit.parameters().get(i);
-            List<Cell> row = new ArrayList<>(List.of(Cell.text(p.name()), Cell.number(p.estimate()),
+            List<Cell> row = new ArrayList<>(List.of(Cell.parameter(p.name()), Cell.number(p.estimate()),
                     Cell.number(p.stdError()), Cell.fixed(p.tStat(), 2), Cell.fixed(p.pValue(), 4),
                     Cell.number(intervals.get(i).lower()), Cell.number(intervals.get(i).upper())));
             if (windmeijer != null) {
@@ -153,8 +189,7 @@ public final class FitReport {
                 Cell.text(""), Cell.fixed(hj.pValue(), 4)));
         table.note("p-values from the chi-square distribution with K - P degrees of freedom, a large-sample "
                 + "approximation.");
-        fit.hj().ifPresent(hj -> table.note(String.format(Locale.ROOT, "Hansen-Jagannathan distance: p-value from "
-                + "its simulated weighted chi-square limit (seed %d, %d draws).", hj.seed(), hj.draws())));
+        fit.hj().ifPresent(hj -> table.note("Hansen-Jagannathan distance: p-value from " + hj.pValueSource() + "."));
         return table.build();
     }
 
@@ -240,13 +275,8 @@ public final class FitReport {
         return new MeanPayoffs(CrossSectionFit.of(prepared.moments(), fit.estimates()), payoffLabel(spec));
     }
 
-    /** What the moments price: gross returns (E[m R] = 1) or excess returns (E[m R^e] = 0). */
+    /** What the moments price: "gross return" (E[m R] = 1) or "excess return" (E[m R^e] = 0). */
     static String payoffLabel(RunSpec spec) {
-        boolean gross = switch (spec.model().family()) {
-            case POWER_UTILITY, RECURSIVE_UTILITY -> true;
-            case LINEAR_FACTOR -> spec.model().form().equals("gross");
-            case EXPRESSION -> spec.model().payoff().equals("gross");
-        };
-        return gross ? "gross return" : "excess return";
+        return spec.model().payoff().label();
     }
 }

@@ -35,7 +35,7 @@ public final class Html {
             tbody tr.flat:nth-child(even) td { background: var(--soft); }
             tr.main td { padding-top: .45rem; }
             .notes { margin: .4rem 0 0; padding: 0; list-style: none; color: var(--muted); font-size: .9rem; }
-            .chart svg { width: 100%; height: auto; max-width: 760px; border: 1px solid var(--rule); }
+            .chart svg { width: 100%; height: auto; border: 1px solid var(--rule); }
             footer { margin-top: 2.5rem; padding-top: .8rem; border-top: 1px solid var(--rule); color: var(--muted);
               font-size: .9rem; }
             @media print { body { font-size: 11pt; } main { max-width: none; padding: 0; }
@@ -68,9 +68,11 @@ public final class Html {
                     table(out, table.table());
                 } else {
                     Chart chart = ((Report.ChartBlock) block).chart();
+                    int width = ChartRenderer.width(chart);
                     out.append("<figure class=\"chart\" id=\"chart-").append(chart.id()).append("\">\n<figcaption>")
                             .append(escape(chart.title())).append("</figcaption>\n")
-                            .append(ChartRenderer.svgElement(chart, ChartRenderer.WIDTH, ChartRenderer.HEIGHT))
+                            .append(ChartRenderer.svgElement(chart, width, ChartRenderer.height(chart))
+                                    .replaceFirst("<svg ", "<svg style=\"max-width: " + width + "px\" "))
                             .append("\n</figure>\n");
                 }
             }

@@ -11,13 +11,14 @@ import org.orthogon.longrun.LongRunCovariance;
 import org.orthogon.spec.FittedRun;
 import org.orthogon.spec.RunSpec;
 import org.orthogon.spec.SampleInfo;
+import org.orthogon.spec.Warning;
 import tools.jackson.databind.json.JsonMapper;
 import tools.jackson.databind.node.ArrayNode;
 import tools.jackson.databind.node.ObjectNode;
 import tools.jackson.databind.SerializationFeature;
 
 /**
- * The results JSON of DESIGN.md section 4. Field names are a contract: add, never rename. Numbers
+ * The results JSON described in docs/output.md. Field names are a contract: add, never rename. Numbers
  * are decimals at full double precision; a value that does not exist (a p-value with zero degrees
  * of freedom) is written as null.
  */
@@ -48,7 +49,7 @@ public final class JsonResults {
         number(longRun, "bandwidth", fit.longRun().bandwidth());
         longRun.put("prewhitened", fit.longRun().prewhitened());
         longRun.put("centered", fit.longRun().centered());
-        // T/(T-P) is always reported, applied only when the model file asks (DESIGN.md: off by default).
+        // T/(T-P) is always reported, applied only when the model file asks (off by default).
         longRun.put("small_sample_adjusted", spec.estimation().smallSample());
         number(longRun, "small_sample_factor", LongRunCovariance.smallSampleFactor(fit.observations(),
                 fit.parameters().size()));
@@ -80,7 +81,7 @@ public final class JsonResults {
             ObjectNode node = root.putObject("hj_distance");
             number(node, "value", hj.value());
             number(node, "p_value", hj.pValue());
-            node.put("p_value_method", "simulated weighted chi-square limit (Jagannathan and Wang 1996)");
+            node.put("p_value_method", hj.method().id());
             node.put("seed", hj.seed());
             node.put("draws", hj.draws());
         });
@@ -115,6 +116,19 @@ public final class JsonResults {
             number(node, "statistic", restriction.test().statistic());
             node.put("df", restriction.test().df());
             number(node, "p_value", restriction.test().pValue());
+        }
+    }
+
+    /**
+     * Adds the warnings found while the model file and its data were prepared as the field
+     * "input_warnings": [{"code", "text"}] (codes such as "many-moments" are stable; scripts may match them).
+     */
+    public static void addInputWarnings(ObjectNode results, List<Warning> warnings) {
+        ArrayNode array = results.putArray("input_warnings");
+        for (Warning warning : warnings) {
+            ObjectNode node = array.addObject();
+            node.put("code", warning.code());
+            node.put("text", warning.text());
         }
     }
 

@@ -5,6 +5,7 @@ import java.time.Instant;
 import java.time.temporal.ChronoUnit;
 import java.util.List;
 import java.util.Map;
+import org.orthogon.gmm.GmmFit;
 import org.orthogon.longrun.BandwidthRule;
 import org.orthogon.spec.InputSummary;
 import org.orthogon.spec.RunSpec;
@@ -37,6 +38,32 @@ public final class Manifest {
             arguments = List.copyOf(arguments);
             seeds = Map.copyOf(seeds);
         }
+    }
+
+    /**
+     * The seeds a fit drew with, by purpose: the Hansen-Jagannathan p-value is simulated, so its seed
+     * belongs in the manifest ("hj_distance"); empty when the fit has no HJ distance.
+     */
+    public static Map<String, Long> seeds(GmmFit fit) {
+        return fit.hj().map(hj -> Map.of("hj_distance", hj.seed())).orElse(Map.of());
+    }
+
+    /**
+     * The Hansen-Jagannathan seeds of several fits: one "hj_distance" entry when they all drew with the
+     * same seed (every period of one model file), else one "hj_distance_<n>" per fit, numbered from 1
+     * in the order given (models compared side by side with their own seeds).
+     */
+    public static Map<String, Long> seeds(List<GmmFit> fits) {
+        List<Long> used = fits.stream().flatMap(fit -> fit.hj().stream()).map(hj -> hj.seed()).distinct().toList();
+        if (used.size() <= 1) {
+            return used.isEmpty() ? Map.of() : Map.of("hj_distance", used.get(0));
+        }
+        Map<String, Long> seeds = new java.util.TreeMap<>();
+        for (int i = 0; i < fits.size(); i++) {
+            int n = i + 1;
+            fits.get(i).hj().ifPresent(hj -> seeds.put("hj_distance_" + n, hj.seed()));
+        }
+        return seeds;
     }
 
     /**
@@ -88,7 +115,7 @@ public final class Manifest {
 
     private static void options(ObjectNode node, RunSpec.EstimationSpec e) {
         node.put("method", e.method().id());
-        node.put("initial_weight", e.initialWeight());
+        node.put("initial_weight", e.initialWeight().id());
         node.put("kernel", e.kernel().id());
         BandwidthRule rule = e.bandwidth();
         if (rule instanceof BandwidthRule.Lags lags) {

@@ -53,11 +53,31 @@ public final class OutputFolder implements AutoCloseable {
         Path parent = absolute.getParent();
         try {
             Files.createDirectories(parent);
-            Path staging = Files.createTempDirectory(parent, "." + absolute.getFileName() + ".orthogon-");
+            Path staging = createHidden(parent, "." + absolute.getFileName() + ".orthogon-", true);
             return new OutputFolder(absolute, overwrite, staging);
         } catch (IOException e) {
             throw InputException.in(target).problem("cannot create the output folder: " + e.getMessage(),
                     "check that " + parent + " is writable, or give another --out folder");
+        }
+    }
+
+    /**
+     * Creates a new file or folder named {@code prefix} plus a random suffix in {@code parent}. Unlike
+     * {@link Files#createTempDirectory} (mode 0700) and {@link Files#createTempFile} (0600), it takes the
+     * permissions the user's umask gives any new file, so a published report reads like every other
+     * folder the user writes (0755 and 0644 under umask 022).
+     */
+    public static Path createHidden(Path parent, String prefix, boolean folder) throws IOException {
+        java.security.SecureRandom random = new java.security.SecureRandom();
+        for (int attempt = 0; ; attempt++) {
+            Path candidate = parent.resolve(prefix + Long.toUnsignedString(random.nextLong()));
+            try {
+                return folder ? Files.createDirectory(candidate) : Files.createFile(candidate);
+            } catch (java.nio.file.FileAlreadyExistsException e) {
+                if (attempt > 100) {
+                    throw e;
+                }
+            }
         }
     }
 

@@ -9,15 +9,20 @@ import java.util.stream.Stream;
  * paragraphs, tables and charts, then the warnings and the caution text.
  *
  * @param title     the heading
+ * @param key       a short label of the run (the model file's name), lower-case words joined by hyphens;
+ *                  it makes the LaTeX labels of two reports differ when one paper inputs both
  * @param subtitle  short lines under the heading (sample, method, long-run covariance)
  * @param sections  the body, in order
  * @param warnings  what a reader must see beside the numbers
  * @param caution   the closing caution; {@link Caution#TEXT} unless a command has more to say
  */
-public record Report(String title, List<String> subtitle, List<Section> sections, List<String> warnings,
-        String caution) {
+public record Report(String title, String key, List<String> subtitle, List<Section> sections,
+        List<String> warnings, String caution) {
 
     public Report {
+        if (!key.matches("[a-z0-9]+(-[a-z0-9]+)*")) {
+            throw new IllegalArgumentException("report key \"" + key + "\" must be lower-case words joined by hyphens");
+        }
         subtitle = List.copyOf(subtitle);
         sections = List.copyOf(sections);
         warnings = List.copyOf(warnings);
@@ -82,6 +87,7 @@ public record Report(String title, List<String> subtitle, List<Section> sections
     /** Builds a {@link Report} section by section. */
     public static final class Builder {
         private final String title;
+        private String key = "report";
         private final List<String> subtitle = new ArrayList<>();
         private final List<Section> sections = new ArrayList<>();
         private final List<String> warnings = new ArrayList<>();
@@ -91,6 +97,17 @@ public record Report(String title, List<String> subtitle, List<Section> sections
 
         private Builder(String title) {
             this.title = title;
+        }
+
+        /**
+         * Sets the run's short label from any text (a model file's name): lower-cased, every run of
+         * other characters turned into one hyphen.
+         */
+        public Builder key(String text) {
+            String cleaned = text.toLowerCase(java.util.Locale.ROOT).replaceAll("[^a-z0-9]+", "-")
+                    .replaceAll("^-+|-+$", "");
+            key = cleaned.isEmpty() ? "report" : cleaned;
+            return this;
         }
 
         /** Adds a line under the title. */
@@ -140,7 +157,7 @@ public record Report(String title, List<String> subtitle, List<Section> sections
         /** The finished report. */
         public Report build() {
             closeSection();
-            return new Report(title, subtitle, sections, warnings, caution);
+            return new Report(title, key, subtitle, sections, warnings, caution);
         }
 
         private List<Block> current() {

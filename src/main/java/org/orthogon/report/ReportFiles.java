@@ -20,13 +20,14 @@ public final class ReportFiles {
         for (Table table : report.tables()) {
             folder.write("tables/" + table.id() + ".csv", CsvTables.write(table));
             folder.write("tables/" + table.id() + ".md", MarkdownTables.write(table));
-            folder.write("tables/" + table.id() + ".tex", LatexTables.write(table));
+            folder.write("tables/" + table.id() + ".tex", LatexTables.write(table, report.key()));
         }
         for (Chart chart : report.charts()) {
-            folder.write("charts/" + chart.id() + ".png", ChartRenderer.png(chart, ChartRenderer.WIDTH,
-                    ChartRenderer.HEIGHT));
-            folder.write("charts/" + chart.id() + ".svg", ChartRenderer.svgDocument(chart, ChartRenderer.WIDTH,
-                    ChartRenderer.HEIGHT));
+            int width = ChartRenderer.width(chart);
+            int height = ChartRenderer.height(chart);
+            folder.write("charts/" + chart.id() + ".png", ChartRenderer.png(chart, width, height,
+                    ChartRenderer.PRINT_SCALE));
+            folder.write("charts/" + chart.id() + ".svg", ChartRenderer.svgDocument(chart, width, height));
         }
         folder.write(OutputFolder.HTML, Html.write(report));
     }

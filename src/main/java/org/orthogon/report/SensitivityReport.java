@@ -49,6 +49,38 @@ public final class SensitivityReport {
                         + "specification%n", differing, rows.size(), 100 * SensitivityGrid.LEVEL);
     }
 
+    /**
+     * The grid as a report table: one row per choice with the bandwidth used, the overidentification
+     * test, each parameter's standard error and the verdict flag; a failed fit shows n/a and why.
+     */
+    public static Table table(List<SensitivityRow> rows, List<String> parameterNames) {
+        List<String> header = new ArrayList<>(List.of("kernel", "bandwidth", "prewhiten", "b used", "statistic",
+                "p-value"));
+        parameterNames.forEach(name -> header.add("se " + name));
+        header.add("verdict");
+        Table.Builder table = Table.builder("sensitivity", "Overidentification test and standard errors under every "
+                + "long-run covariance choice", header);
+        int differing = 0;
+        for (SensitivityRow row : rows) {
+            List<Cell> cells = new ArrayList<>(List.of(Cell.text(row.choice().kernel().id()),
+                    Cell.text(SensitivityGrid.bandwidthLabel(row.choice())), Cell.text(row.choice().prewhiten() ? "yes"
+                            : "no")));
+            boolean failed = row.failure() != null;
+            cells.add(Cell.fixed(failed ? Double.NaN : row.bandwidth(), 2));
+            cells.add(Cell.fixed(failed ? Double.NaN : row.statistic(), 3));
+            cells.add(Cell.fixed(failed ? Double.NaN : row.pValue(), 4));
+            for (int i = 0; i < parameterNames.size(); i++) {
+                cells.add(Cell.number(failed ? Double.NaN : row.standardErrors().get(i)));
+            }
+            cells.add(Cell.text(failed ? "failed: " + shorten(row.failure()) : row.verdictDiffers() ? "differs" : ""));
+            differing += row.verdictDiffers() ? 1 : 0;
+            table.row(cells);
+        }
+        return table.note(String.format(java.util.Locale.ROOT, "%d of %d rows reach a different verdict at the %.0f%% "
+                + "level than the main specification (\"differs\").", differing, rows.size(),
+                100 * SensitivityGrid.LEVEL)).build();
+    }
+
     /** Adds the field "sensitivity" (an array of rows) to a results object. */
     public static void addTo(ObjectNode results, List<SensitivityRow> rows, List<String> parameterNames) {
         ArrayNode array = results.putArray("sensitivity");

@@ -9,7 +9,10 @@ import org.orthogon.gmm.ParameterEstimate;
 import org.orthogon.spec.RunSpec;
 import org.orthogon.spec.SampleInfo;
 
-/** The report document of `stability`: per-period tables, the tests, the sup-Wald sequence and rolling paths. */
+/**
+ * The report document of `stability`: per-period tables, the tests, the sup-Wald sequence, and the
+ * rolling or expanding windows as a table and as one chart per parameter.
+ */
 public final class StabilityDocument {
     private StabilityDocument() {
     }
@@ -17,6 +20,7 @@ public final class StabilityDocument {
     public static Report build(RunSpec spec, SampleInfo sample, List<StabilityReport.Variant> variants,
             List<String> warnings) {
         Report.Builder report = Report.builder("Stability: " + spec.title())
+                .key(spec.modelFile().getFileName().toString().replaceFirst("\\.toml$", "") + "-stability")
                 .subtitle(String.format(Locale.ROOT, "Full sample %s %s to %s, T = %d; each period fitted separately",
                         sample.frequency(), sample.start(), sample.end(), sample.observations()));
         for (int v = 0; v < variants.size(); v++) {
@@ -41,8 +45,10 @@ public final class StabilityDocument {
                         "5% critical value of the supremum"));
             }
             if (!variant.rolling().isEmpty()) {
+                boolean expanding = spec.stability().expanding();
+                report.table(windows("windows" + suffix, variant.rolling(), expanding));
                 // One chart per parameter: parameters on different scales would flatten each other.
-                rollingCharts("rolling", suffix, variant.rolling()).forEach(report::chart);
+                rollingCharts("rolling", suffix, variant.rolling(), expanding).forEach(report::chart);
             }
         }
         return report.warnings(warnings).build();
@@ -61,7 +67,7 @@ public final class StabilityDocument {
         }
         List<ParameterEstimate> first = periods.get(0).fit().parameters();
         for (int i = 0; i < first.size(); i++) {
-            List<Cell> row = new ArrayList<>(List.of(Cell.text(first.get(i).name())));
+            List<Cell> row = new ArrayList<>(List.of(Cell.parameter(first.get(i).name())));
             for (PeriodFit period : periods) {
                 ParameterEstimate p = period.fit().parameters().get(i);
                 row.add(Cell.number(p.estimate()));
@@ -82,7 +88,42 @@ public final class StabilityDocument {
                 .build();
     }
 
-    private static List<Chart> rollingCharts(String prefix, String suffix, List<PeriodFit> windows) {
+    /**
+     * One row per window: its dates and T, each parameter's estimate with its standard error under it,
+     * and the overidentification p-value; a window whose fit failed shows n/a.
+     */
+    private static Table windows(String id, List<PeriodFit> windows, boolean expanding) {
+        List<String> names = windows.stream().filter(w -> w.fit() != null).findFirst()
+                .map(w -> w.fit().parameters().stream().map(ParameterEstimate::name).toList()).orElse(List.of());
+        List<String> header = new ArrayList<>(List.of("window", "T"));
+        for (String name : names) {
+            header.add(name);
+            header.add("se " + name);
+        }
+        header.add("p(overid)");
+        Table.Builder table = Table.builder(id, "Estimates over " + StabilityReport.windowKind(expanding) + " windows",
+                header);
+        names.forEach(name -> table.errorUnder(name, "se " + name));
+        for (PeriodFit window : windows) {
+            List<Cell> row = new ArrayList<>(List.of(Cell.text(window.start() + " to " + window.end()),
+                    Cell.count(window.to() - window.from())));
+            for (int i = 0; i < names.size(); i++) {
+                ParameterEstimate p = window.fit() == null ? null : window.fit().parameters().get(i);
+                row.add(Cell.number(p == null ? Double.NaN : p.estimate()));
+                row.add(Cell.number(p == null ? Double.NaN : p.stdError()));
+            }
+            row.add(Cell.fixed(window.fit() == null ? Double.NaN : window.fit().overidentification().pValue(), 4));
+            table.row(row);
+        }
+        long failed = windows.stream().filter(w -> w.fit() == null).count();
+        table.note("Standard errors in parentheses; p(overid) is the p-value of each window's overidentification test.");
+        if (failed > 0) {
+            table.note(failed + " of " + windows.size() + " windows could not be fitted (n/a).");
+        }
+        return table.build();
+    }
+
+    private static List<Chart> rollingCharts(String prefix, String suffix, List<PeriodFit> windows, boolean expanding) {
         List<String> dates = windows.stream().map(PeriodFit::end).toList();
         PeriodFit sample = windows.stream().filter(w -> w.fit() != null).findFirst().orElse(null);
         List<Chart> charts = new ArrayList<>();
@@ -99,7 +140,8 @@ public final class StabilityDocument {
                 errors.add(p == null ? Double.NaN : p.stdError());
             }
             String id = prefix + "-" + name.toLowerCase(java.util.Locale.ROOT).replaceAll("[^a-z0-9]+", "-") + suffix;
-            charts.add(new Chart.Bands(id, name + " over rolling windows (±1.96 standard errors)", "window end",
+            charts.add(new Chart.Bands(id, name + " over " + StabilityReport.windowKind(expanding)
+                    + " windows (±1.96 standard errors)", "window end",
                     name, dates, List.of(new Chart.Path(name, values, errors))));
         }
         return charts;

@@ -14,7 +14,7 @@ import org.orthogon.spec.SampleInfo;
 import tools.jackson.databind.node.ArrayNode;
 import tools.jackson.databind.node.ObjectNode;
 
-/** Stability across sample periods as console text and as the stability JSON of DESIGN.md section 4. */
+/** Stability across sample periods as console text and as the stability JSON of docs/output.md. */
 public final class StabilityReport {
     private static final double[] LEVELS = {0.10, 0.05, 0.01};
 
@@ -67,7 +67,7 @@ public final class StabilityReport {
                 }
             }
             if (!variant.rolling().isEmpty()) {
-                out.append(rollingTable(variant.rolling()));
+                out.append(rollingTable(variant.rolling(), spec.stability().expanding()));
             }
         }
         for (String warning : warnings) {
@@ -105,7 +105,7 @@ public final class StabilityReport {
         return table.render("  ");
     }
 
-    private static String rollingTable(List<PeriodFit> windows) {
+    private static String rollingTable(List<PeriodFit> windows, boolean expanding) {
         List<String> header = new ArrayList<>(List.of("window"));
         List<String> names = windows.stream().filter(w -> w.fit() != null).findFirst()
                 .map(w -> w.fit().parameters().stream().map(ParameterEstimate::name).toList()).orElse(List.of());
@@ -132,7 +132,13 @@ public final class StabilityReport {
             }
             table.row(row);
         }
-        return "  rolling windows (estimate, standard error; bands are estimate +- 1.96 se)\n" + table.render("  ");
+        return "  " + windowKind(expanding) + " windows (estimate, standard error; bands are estimate +- 1.96 se)\n"
+                + table.render("  ");
+    }
+
+    /** "expanding" (every window starts at the first observation) or "rolling" (fixed length). */
+    static String windowKind(boolean expanding) {
+        return expanding ? "expanding" : "rolling";
     }
 
     /** The stability JSON: the model file's variant at the top level, the fixed-weight one under "fixed_weight". */
@@ -181,6 +187,7 @@ public final class StabilityReport {
             }
         }
         ArrayNode rolling = root.putArray("rolling");
+        root.put("expanding", spec.stability().expanding());
         for (PeriodFit window : variant.rolling()) {
             ObjectNode node = rolling.addObject();
             node.put("start", window.start());

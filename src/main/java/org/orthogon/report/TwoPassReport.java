@@ -181,6 +181,7 @@ public final class TwoPassReport {
     public static Report build(RunSpec spec, SampleInfo sample, TwoPassResult result, List<String> notes) {
         TimeSeriesFit ts = result.timeSeries();
         Report.Builder report = Report.builder(spec.title())
+                .key(spec.modelFile().getFileName().toString().replaceFirst("\\.toml$", "") + "-two-pass")
                 .subtitle("Two-pass regressions; " + sampleLine(sample))
                 .subtitle(String.format(Locale.ROOT, "N = %d test assets, K = %d factors: %s", ts.assets().size(),
                         ts.factors().size(), String.join(", ", ts.factors())));

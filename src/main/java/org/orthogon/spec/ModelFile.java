@@ -19,21 +19,23 @@ import java.util.Optional;
 import java.util.Set;
 import java.util.stream.Collectors;
 import org.orthogon.data.InputException;
+import org.orthogon.data.ReturnKind;
 import org.orthogon.data.Suggestions;
+import org.orthogon.data.Units;
 import org.orthogon.gmm.EstimationMethod;
+import org.orthogon.gmm.InitialWeight;
 import org.orthogon.longrun.BandwidthRule;
 import org.orthogon.longrun.Kernel;
+import org.orthogon.longrun.LongRunOptions;
 import org.orthogon.spec.RunSpec.DataSpec;
 import org.orthogon.spec.RunSpec.EstimationSpec;
-import org.orthogon.spec.RunSpec.Family;
-import org.orthogon.spec.RunSpec.ModelSpec;
 import tools.jackson.core.JacksonException;
 import tools.jackson.core.TokenStreamLocation;
 import tools.jackson.databind.JsonNode;
 import tools.jackson.dataformat.toml.TomlMapper;
 
 /**
- * Reads a model file (TOML, DESIGN.md section 4) into a {@link RunSpec}. Every refusal is an
+ * Reads a model file (TOML; every key is described in docs/model-file.md) into a {@link RunSpec}. Every refusal is an
  * {@link InputException} naming the model file, the line of the offending key and the fix; unknown
  * keys are errors with a "did you mean" suggestion, never silently ignored.
  */
@@ -42,18 +44,23 @@ public final class ModelFile {
     private static final List<String> DATA_KEYS = List.of("returns", "assets", "returns_kind", "units", "riskfree",
             "riskfree_column", "factors", "macro", "instruments", "wealth", "start", "end", "returns_table", "deflator",
             "deflator_column", "instrument_lags");
-    private static final List<String> MODEL_KEYS = List.of("family", "consumption_column", "factor_columns",
-            "instrument_columns", "start_values", "form", "wealth_column", "sdf", "parameters", "payoff",
-            "factor_instruments", "bounds", "consumption_level_column", "population_column", "price_column");
-    private static final List<String> FORMS = List.of("excess", "demeaned", "gross");
-    private static final List<String> PAYOFFS = List.of("gross", "excess");
+    /** The [model] keys: those every family reads, then each family's own, in registration order. */
+    private static final List<String> MODEL_KEYS = modelKeys();
     private static final List<String> ESTIMATION_KEYS = List.of("method", "initial_weight", "kernel", "bandwidth",
             "lags", "prewhiten", "centered", "restrictions", "confidence_level", "max_iterations", "hj_seed", "hj_draws",
             "small_sample_correction");
     private static final List<String> STABILITY_KEYS = List.of("splits", "trimming", "window", "step", "expanding");
-    private static final List<String> RETURN_KINDS = List.of("gross", "net", "excess");
-    private static final List<String> UNITS = List.of("decimal", "percent");
     private static final List<String> INITIAL_WEIGHTS = List.of("identity", "second-moment");
+    private static final List<String> RETURN_KINDS = Arrays.stream(ReturnKind.values()).map(ReturnKind::id).toList();
+    private static final List<String> UNITS = Arrays.stream(Units.values()).map(Units::id).toList();
+
+    private static List<String> modelKeys() {
+        List<String> keys = new ArrayList<>(ModelCommon.KEYS);
+        for (Family family : ModelSpec.FAMILIES) {
+            family.keys().stream().filter(key -> !keys.contains(key)).forEach(keys::add);
+        }
+        return List.copyOf(keys);
+    }
 
     private final Path file;
     private final List<String> lines;
@@ -150,12 +157,15 @@ public final class ModelFile {
         String title = root.has("title") ? string(null, root, "title") : fileStem();
         DataSpec dataSpec = parseData(data);
         ModelSpec modelSpec = parseModel(model);
-        EstimationSpec estimationSpec = parseEstimation(estimation, modelSpec.family());
-        RunSpec.StabilitySpec stabilitySpec = stability == null ? RunSpec.StabilitySpec.defaults()
-                : parseStability(stability);
+        EstimationSpec estimationSpec = parseEstimation(estimation, modelSpec);
+        StabilitySpec stabilitySpec = stability == null ? StabilitySpec.defaults() : parseStability(stability);
         Map<String, Integer> keyLines = new LinkedHashMap<>();
         for (Map.Entry<String, List<String>> section : Map.of("data", DATA_KEYS, "model", MODEL_KEYS,
                 "estimation", ESTIMATION_KEYS, "stability", STABILITY_KEYS).entrySet()) {
+            int header = lineOf(section.getKey(), null);
+            if (header > 0 && root.has(section.getKey())) {
+                keyLines.put(section.getKey(), header);
+            }
             for (String key : section.getValue()) {
                 int line = lineOf(section.getKey(), key);
                 if (line > 0 && root.path(section.getKey()).has(key)) {
@@ -174,8 +184,8 @@ public final class ModelFile {
         return new DataSpec(
                 path("data", data, "returns"),
                 stringList("data", data, "assets"),
-                choice("data", data, "returns_kind", RETURN_KINDS, "gross"),
-                choice("data", data, "units", UNITS, "decimal"),
+                ReturnKind.fromId(choice("data", data, "returns_kind", RETURN_KINDS, "gross")),
+                Units.fromId(choice("data", data, "units", UNITS, "decimal")),
                 optionalPath(data, "riskfree"),
                 optionalString("data", data, "riskfree_column"),
                 optionalPath(data, "factors"),
@@ -184,23 +194,25 @@ public final class ModelFile {
                 optionalPath(data, "wealth"),
                 optionalString("data", data, "start"),
                 optionalString("data", data, "end"),
-                data.has("returns_table") ? Optional.of(data.get("returns_table").asString()) : Optional.empty(),
+                optionalString("data", data, "returns_table"),
                 optionalPath(data, "deflator"),
                 optionalString("data", data, "deflator_column"),
                 instrumentLags(data));
     }
 
     private ModelSpec parseModel(JsonNode model) {
+        List<String> ids = ModelSpec.FAMILIES.stream().map(Family::id).toList();
         if (!model.has("family")) {
             throw error("model", null, "[model] has no family",
-                    "add family = \"power-utility\", \"recursive-utility\", \"linear-factor\" or \"expression\"");
+                    "add family = " + ids.stream().map(id -> "\"" + id + "\"").collect(Collectors.joining(", ")));
         }
         String familyId = string("model", model, "family");
-        Family family = Family.fromId(familyId).orElseThrow(() -> error("model", "family",
-                "unknown family \"" + familyId + "\"",
-                "use one of " + Arrays.stream(Family.values()).map(Family::id).collect(Collectors.joining(", "))
-                        + Suggestions.didYouMean(familyId,
-                                Arrays.stream(Family.values()).map(Family::id).toList())));
+        Family family = ModelSpec.family(familyId);
+        if (family == null) {
+            throw error("model", "family", "unknown family \"" + familyId + "\"",
+                    "use one of " + String.join(", ", ids) + Suggestions.didYouMean(familyId, ids));
+        }
+        rejectKeysOfOtherFamilies(family, model);
         Map<String, Double> startValues = new LinkedHashMap<>();
         if (model.has("start_values")) {
             JsonNode values = model.get("start_values");
@@ -209,28 +221,42 @@ public final class ModelFile {
                         "write start_values = { beta = 0.99, gamma = 2.0 }");
             }
             for (Map.Entry<String, JsonNode> entry : values.properties()) {
-                if (!entry.getValue().isNumber()) {
-                    throw error("model", "start_values", "start value of " + entry.getKey() + " is not a number",
+                if (!entry.getValue().isNumber() || !Double.isFinite(entry.getValue().asDouble())) {
+                    throw error("model", "start_values", "start value of " + entry.getKey() + " is not a finite number",
                             "write a number, e.g. " + entry.getKey() + " = 2.0");
                 }
                 startValues.put(entry.getKey(), entry.getValue().asDouble());
             }
         }
-        return new ModelSpec(family,
-                optionalString("model", model, "consumption_column"),
-                stringList("model", model, "factor_columns"),
-                stringList("model", model, "instrument_columns"),
-                startValues,
-                choice("model", model, "form", FORMS, "excess"),
-                optionalString("model", model, "wealth_column"),
-                optionalString("model", model, "sdf"),
-                stringList("model", model, "parameters"),
-                choice("model", model, "payoff", PAYOFFS, "gross"),
-                stringList("model", model, "factor_instruments"),
-                bounds(model),
-                optionalString("model", model, "consumption_level_column"),
-                optionalString("model", model, "population_column"),
-                optionalString("model", model, "price_column"));
+        ModelCommon common = new ModelCommon(stringList("model", model, "instrument_columns"), startValues,
+                bounds(model));
+        return family.reader().read(new ModelSection(this, "model", model), common);
+    }
+
+    /**
+     * Refuses a [model] key, or a [data] key only some family uses, that the chosen family does not
+     * read: a mistake worth naming rather than a value silently ignored.
+     */
+    private void rejectKeysOfOtherFamilies(Family family, JsonNode model) {
+        for (String key : model.propertyNames()) {
+            if (!ModelCommon.KEYS.contains(key) && !family.keys().contains(key)) {
+                throw error("model", key, key + " is not used by the " + family.id() + " family",
+                        "remove it, or choose the family that uses it (" + familiesUsing(key, Family::keys) + ")");
+            }
+        }
+        for (Family other : ModelSpec.FAMILIES) {
+            for (String key : other.dataKeys()) {
+                if (!family.dataKeys().contains(key) && root.path("data").has(key)) {
+                    throw error("data", key, key + " is not used by the " + family.id() + " family",
+                            "remove it, or use family = \"" + familiesUsing(key, Family::dataKeys) + "\"");
+                }
+            }
+        }
+    }
+
+    private static String familiesUsing(String key, java.util.function.Function<Family, List<String>> keys) {
+        return ModelSpec.FAMILIES.stream().filter(f -> keys.apply(f).contains(key)).map(Family::id).sorted()
+                .collect(Collectors.joining(", "));
     }
 
     /**
@@ -240,46 +266,55 @@ public final class ModelFile {
      * others, whose unconditional null implies no such thing. A lag count or bandwidth without a kernel means
      * Bartlett for every family.
      */
-    static String defaultKernel(Family family, JsonNode estimation) {
+    static String defaultKernel(ModelSpec model, JsonNode estimation) {
         boolean lagsGiven = estimation.has("lags") || estimation.has("bandwidth");
-        boolean euler = family == Family.POWER_UTILITY || family == Family.RECURSIVE_UTILITY;
-        return euler && !lagsGiven ? Kernel.NONE.id() : Kernel.BARTLETT.id();
+        return model.martingaleDifferenceErrors() && !lagsGiven ? Kernel.NONE.id() : Kernel.BARTLETT.id();
     }
 
-    private EstimationSpec parseEstimation(JsonNode estimation, Family family) {
+    private EstimationSpec parseEstimation(JsonNode estimation, ModelSpec model) {
         JsonNode node = estimation == null ? TomlMapper.builder().build().createObjectNode() : estimation;
         String methodId = choice("estimation", node, "method",
                 Arrays.stream(EstimationMethod.values()).map(EstimationMethod::id).toList(), "two-step");
         String weight = choice("estimation", node, "initial_weight", INITIAL_WEIGHTS, "identity");
         String kernelId = choice("estimation", node, "kernel",
-                Arrays.stream(Kernel.values()).map(Kernel::id).toList(), defaultKernel(family, node));
+                Arrays.stream(Kernel.values()).map(Kernel::id).toList(), defaultKernel(model, node));
         Kernel kernel = Kernel.fromId(kernelId);
         if (node.has("bandwidth") && node.has("lags")) {
             throw error("estimation", "lags", "both bandwidth and lags are given",
                     "keep one: lags = L (a lag count) or bandwidth = b (the number in k(j/b))");
         }
-        BandwidthRule rule;
+        BandwidthRule rule = kernel.defaultBandwidth();
+        String key = node.has("lags") ? "lags" : "bandwidth";
         if (node.has("lags")) {
             JsonNode lags = node.get("lags");
-            if (!lags.isIntegralNumber() || lags.asInt() < 0) {
+            if (!lags.isIntegralNumber() || lags.asLong() < 0 || lags.asLong() > 100_000) {
                 throw error("estimation", "lags", "lags must be a whole number >= 0, found " + lags,
                         "write lags = 4, for example");
             }
             rule = new BandwidthRule.Lags(lags.asInt());
         } else if (node.has("bandwidth")) {
             JsonNode bandwidth = node.get("bandwidth");
-            rule = parseBandwidth(bandwidth.asString(),
-                    msg -> error("estimation", "bandwidth", msg,
-                            "write bandwidth = 5.0, \"andrews\" or \"newey-west\""));
-        } else {
-            rule = new BandwidthRule.Lags(kernel == Kernel.NONE ? 0 : 4);
+            String text = bandwidth.isNumber() ? bandwidth.asString() : bandwidth.isString() ? bandwidth.asString() : "";
+            rule = parseBandwidth(text, msg -> error("estimation", "bandwidth", msg,
+                    "write bandwidth = 5.0, \"andrews\" or \"newey-west\""));
+        }
+        boolean given = node.has("lags") || node.has("bandwidth");
+        if (given && !kernel.usesBandwidth() && !rule.equals(new BandwidthRule.Lags(0))) {
+            throw error("estimation", key, "kernel = \"" + kernel.id() + "\" uses no lags, so " + key
+                    + " has no effect", "remove " + key + ", or choose a kernel that uses lags (" + Kernel.idsWithBandwidth()
+                    + ")");
+        }
+        String conflict = LongRunOptions.conflict(kernel, rule).orElse(null);
+        if (conflict != null) {
+            throw error("estimation", key, conflict, "write " + String.join(", or ",
+                    LongRunOptions.acceptedChoices(kernel)) + " under [estimation]");
         }
         double level = node.has("confidence_level") ? node.get("confidence_level").asDouble() : 0.95;
         if (node.has("confidence_level") && !(node.get("confidence_level").isNumber() && level > 0 && level < 1)) {
             throw error("estimation", "confidence_level", "confidence_level must be a number between 0 and 1, found "
                     + node.get("confidence_level"), "write confidence_level = 0.95");
         }
-        return new EstimationSpec(EstimationMethod.fromId(methodId), weight, kernel, rule,
+        return new EstimationSpec(EstimationMethod.fromId(methodId), InitialWeight.fromId(weight), kernel, rule, given,
                 bool("estimation", node, "prewhiten", false), bool("estimation", node, "centered", true),
                 stringList("estimation", node, "restrictions"), level,
                 wholeNumber(node, "max_iterations", 1, 100, "max_iterations = 100"),
@@ -346,29 +381,35 @@ public final class ModelFile {
         return bounds;
     }
 
-    private RunSpec.StabilitySpec parseStability(JsonNode node) {
-        double trimming = 0.15;
+    private StabilitySpec parseStability(JsonNode node) {
+        double trimming = StabilitySpec.DEFAULT_TRIMMING;
         if (node.has("trimming")) {
             JsonNode value = node.get("trimming");
-            if (!value.isNumber() || !(value.asDouble() > 0 && value.asDouble() < 0.5)) {
-                throw error("stability", "trimming", "trimming must be a number between 0 and 0.5, found " + value,
+            String problem = value.isNumber() ? StabilitySpec.trimmingProblem(value.asDouble()).orElse(null)
+                    : "trimming must be a number between 0 and 0.5, found " + value;
+            if (problem != null) {
+                throw error("stability", "trimming", problem,
                         "write trimming = 0.15 (each side of a break holds at least 15% of the sample)");
             }
             trimming = value.asDouble();
         }
         Optional<Integer> window = Optional.empty();
         if (node.has("window")) {
-            window = Optional.of(positiveInteger(node, "window", "window = 120 (observations per rolling window)"));
+            window = Optional.of(wholeNumber("stability", node, "window", StabilitySpec::windowProblem,
+                    "window = 120 (observations per rolling window)"));
         }
-        int step = node.has("step") ? positiveInteger(node, "step", "step = 12") : 1;
-        return new RunSpec.StabilitySpec(stringList("stability", node, "splits"), trimming, window, step,
-                bool("stability", node, "expanding", false));
+        int step = node.has("step") ? wholeNumber("stability", node, "step", StabilitySpec::stepProblem, "step = 12") : 1;
+        return new StabilitySpec(stringList("stability", node, "splits"), trimming, window, step,
+                bool("stability", node, "expanding", false), java.util.Set.of());
     }
 
-    private int positiveInteger(JsonNode node, String key, String example) {
+    private int wholeNumber(String section, JsonNode node, String key,
+            java.util.function.LongFunction<Optional<String>> problem, String example) {
         JsonNode value = node.get(key);
-        if (!value.isIntegralNumber() || value.asInt() < 1) {
-            throw error("stability", key, key + " must be a whole number >= 1, found " + value, "write " + example);
+        String why = value.isIntegralNumber() ? problem.apply(value.asLong()).orElse(null)
+                : key + " must be a whole number, found " + value;
+        if (why != null) {
+            throw error(section, key, why, "write " + example);
         }
         return value.asInt();
     }
@@ -423,7 +464,7 @@ public final class ModelFile {
         }
     }
 
-    private String string(String section, JsonNode node, String key) {
+    String string(String section, JsonNode node, String key) {
         JsonNode value = node.get(key);
         if (!value.isString()) {
             throw error(section, key, key + " must be a string in double quotes, found " + value,
@@ -432,11 +473,11 @@ public final class ModelFile {
         return value.asString();
     }
 
-    private Optional<String> optionalString(String section, JsonNode node, String key) {
+    Optional<String> optionalString(String section, JsonNode node, String key) {
         return node.has(key) ? Optional.of(string(section, node, key)) : Optional.empty();
     }
 
-    private String choice(String section, JsonNode node, String key, List<String> allowed, String fallback) {
+    String choice(String section, JsonNode node, String key, List<String> allowed, String fallback) {
         if (!node.has(key)) {
             return fallback;
         }
@@ -459,7 +500,7 @@ public final class ModelFile {
         return value.asBoolean();
     }
 
-    private List<String> stringList(String section, JsonNode node, String key) {
+    List<String> stringList(String section, JsonNode node, String key) {
         if (!node.has(key)) {
             return List.of();
         }

@@ -1,10 +1,15 @@
 package org.orthogon.spec;
 
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import org.orthogon.data.InputException;
+import org.orthogon.data.ReturnKind;
+import org.orthogon.data.Units;
 import org.orthogon.gmm.EstimationMethod;
+import org.orthogon.gmm.InitialWeight;
 import org.orthogon.longrun.BandwidthRule;
 import org.orthogon.longrun.Kernel;
 import org.orthogon.longrun.LongRunOptions;
@@ -13,6 +18,9 @@ import org.orthogon.longrun.LongRunOptions;
  * A validated model file: every path resolved against the model file's folder, every choice typed.
  * Built by {@link ModelFile#read(Path)}; command-line options replace parts with the {@code with...}
  * methods, so one record describes exactly what a run did.
+ *
+ * @param keyLines the 1-based line of every key written, as "section.key", and of every section
+ *                 header written, as "section"
  */
 public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec model, EstimationSpec estimation,
         StabilitySpec stability, Map<String, Integer> keyLines) {
@@ -21,17 +29,25 @@ public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec mod
         keyLines = Map.copyOf(keyLines);
     }
 
-    /** The 1-based line of "section.key" in the model file, 0 when the key was not written there. */
+    /**
+     * The 1-based line of "section.key" in the model file; the section's header line when the key is
+     * not written (where a missing key belongs); 0 when neither is written.
+     */
     public int lineOf(String section, String key) {
-        return keyLines.getOrDefault(section + "." + key, 0);
+        return keyLines.getOrDefault(section + "." + key, keyLines.getOrDefault(section, 0));
+    }
+
+    /** Whether the model file writes "section.key". */
+    public boolean writes(String section, String key) {
+        return keyLines.containsKey(section + "." + key);
     }
 
     /** Paths and conventions of the input files ([data] section). */
     public record DataSpec(
             Path returns,
             List<String> assets,
-            String returnsKind,
-            String units,
+            ReturnKind returnsKind,
+            Units units,
             Optional<Path> riskfree,
             Optional<String> riskfreeColumn,
             Optional<Path> factors,
@@ -51,49 +67,11 @@ public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec mod
     }
 
     /**
-     * The SDF family and its columns ([model] section).
+     * Estimation choices ([estimation] section). The kernel and the bandwidth rule always go together
+     * ({@link LongRunOptions#conflict}); the record cannot be built otherwise.
      *
-     * @param form              linear-factor only: "excess" (m = 1 - b'F on excess returns), "demeaned"
-     *                          (m = 1 - b'(F - mu), mu estimated) or "gross" (m = a - b'F on gross returns)
-     * @param wealthColumn      recursive-utility: the wealth-return proxy column of the [data] wealth file
-     * @param sdf               expression: the SDF formula over data columns and parameters
-     * @param parameters        expression: the parameter names, in order
-     * @param payoff            expression: "gross" (E[m R] = 1) or "excess" (E[m R^e] = 0)
-     * @param factorInstruments linear-factor: instruments that scale the factors, F_t ⊗ z_{t-1}
-     * @param bounds            closed bounds [lower, upper] per parameter name
-     * @param consumptionLevelColumn power/recursive utility: consumption levels instead of growth
-     * @param populationColumn  with levels: population, for per-capita growth
-     * @param priceColumn       with levels: a price level, for real growth of nominal consumption
-     */
-    public record ModelSpec(
-            Family family,
-            Optional<String> consumptionColumn,
-            List<String> factorColumns,
-            List<String> instrumentColumns,
-            Map<String, Double> startValues,
-            String form,
-            Optional<String> wealthColumn,
-            Optional<String> sdf,
-            List<String> parameters,
-            String payoff,
-            List<String> factorInstruments,
-            Map<String, double[]> bounds,
-            Optional<String> consumptionLevelColumn,
-            Optional<String> populationColumn,
-            Optional<String> priceColumn) {
-        public ModelSpec {
-            factorColumns = List.copyOf(factorColumns);
-            instrumentColumns = List.copyOf(instrumentColumns);
-            startValues = Map.copyOf(startValues);
-            parameters = List.copyOf(parameters);
-            factorInstruments = List.copyOf(factorInstruments);
-            bounds = Map.copyOf(bounds);
-        }
-    }
-
-    /**
-     * Estimation choices ([estimation] section).
-     *
+     * @param bandwidthGiven   whether the bandwidth (or lag count) was written, in the model file or on the
+     *                         command line, rather than taken from the kernel's default
      * @param restrictions     linear restrictions to test by Wald statistics, e.g. "b_SIZE = 0, b_TIDE = 0"
      * @param confidenceLevel  level of the reported confidence intervals
      * @param maxIterations    cap on the weight updates of iterated GMM
@@ -101,27 +79,29 @@ public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec mod
      * @param hjDraws          draws of that simulation
      * @param smallSample      multiply S by T/(T - P) for the reported inference (off by default)
      */
-    public record EstimationSpec(EstimationMethod method, String initialWeight, Kernel kernel, BandwidthRule bandwidth,
-            boolean prewhiten, boolean centered, List<String> restrictions, double confidenceLevel, int maxIterations,
-            long hjSeed, int hjDraws, boolean smallSample) {
+    public record EstimationSpec(EstimationMethod method, InitialWeight initialWeight, Kernel kernel,
+            BandwidthRule bandwidth, boolean bandwidthGiven, boolean prewhiten, boolean centered,
+            List<String> restrictions, double confidenceLevel, int maxIterations, long hjSeed, int hjDraws,
+            boolean smallSample) {
 
         public EstimationSpec {
             restrictions = List.copyOf(restrictions);
+            new LongRunOptions(kernel, bandwidth, centered, prewhiten);
         }
 
         /** The same choices with more restrictions to test. */
         public EstimationSpec withRestrictions(List<String> more) {
-            List<String> all = new java.util.ArrayList<>(restrictions);
+            List<String> all = new ArrayList<>(restrictions);
             all.addAll(more);
-            return new EstimationSpec(method, initialWeight, kernel, bandwidth, prewhiten, centered, all, confidenceLevel,
-                    maxIterations, hjSeed, hjDraws, smallSample);
+            return new EstimationSpec(method, initialWeight, kernel, bandwidth, bandwidthGiven, prewhiten, centered, all,
+                    confidenceLevel, maxIterations, hjSeed, hjDraws, smallSample);
         }
 
-        /** The same choices with another method, kernel, bandwidth rule, prewhitening and centering. */
-        public EstimationSpec with(EstimationMethod newMethod, Kernel newKernel, BandwidthRule newBandwidth,
-                boolean newPrewhiten, boolean newCentered) {
-            return new EstimationSpec(newMethod, initialWeight, newKernel, newBandwidth, newPrewhiten, newCentered,
-                    restrictions, confidenceLevel, maxIterations, hjSeed, hjDraws, smallSample);
+        /** The same choices with another method and long-run covariance estimator. */
+        public EstimationSpec with(EstimationMethod newMethod, LongRunOptions options, boolean newBandwidthGiven) {
+            return new EstimationSpec(newMethod, initialWeight, options.kernel(), options.bandwidth(), newBandwidthGiven,
+                    options.prewhiten(), options.centered(), restrictions, confidenceLevel, maxIterations, hjSeed,
+                    hjDraws, smallSample);
         }
 
         /** The long-run covariance options these choices imply. */
@@ -129,13 +109,16 @@ public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec mod
             return new LongRunOptions(kernel, bandwidth, centered, prewhiten);
         }
 
-        /** The same choices with another long-run covariance estimator. */
+        /** The same choices with another long-run covariance estimator (the sensitivity grid's rows). */
         public EstimationSpec withLongRun(LongRunOptions options) {
-            return with(method, options.kernel(), options.bandwidth(), options.prewhiten(), options.centered());
+            return with(method, options, true);
         }
 
-        /** A human-readable bandwidth choice: "lags 4", "b = 5.0", "andrews", "newey-west". */
+        /** A human-readable bandwidth choice: "lags 4", "b = 5.0", "andrews", "newey-west", "no bandwidth". */
         public String bandwidthLabel() {
+            if (!kernel.usesBandwidth()) {
+                return "no bandwidth";
+            }
             if (bandwidth instanceof BandwidthRule.Lags lags) {
                 return "lags " + lags.lags();
             }
@@ -147,52 +130,69 @@ public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec mod
     }
 
     /**
-     * Sample-period choices for `stability` ([stability] section; the command line may replace them).
+     * The spec with the command line's estimation choices in force; null leaves the model file's. A
+     * kernel given alone keeps the model file's bandwidth when the new kernel can use it, takes the
+     * new kernel's default when the model file wrote none, and is refused when the model file's
+     * bandwidth cannot go with it; a bandwidth given for a kernel that cannot use it is refused.
      *
-     * @param splits    first dates of the later periods of known breaks, as written ("1995-01")
-     * @param trimming  share of the sample each side of an unknown break must hold
-     * @param window    rolling-window length in observations, if rolling windows are wanted
-     * @param step      observations between window ends
-     * @param expanding windows all start at the first observation
+     * @param bandwidthOption how the bandwidth was written ("--lags 4", "--bandwidth andrews"), for messages
+     * @throws InputException naming the options (and the model-file line) and the fix
      */
-    public record StabilitySpec(List<String> splits, double trimming, Optional<Integer> window, int step,
-            boolean expanding) {
-        public StabilitySpec {
-            splits = List.copyOf(splits);
+    public RunSpec withCommandLine(EstimationMethod method, Kernel kernel, BandwidthRule bandwidth,
+            String bandwidthOption, Boolean prewhiten, Boolean centered, List<String> restrictions) {
+        EstimationSpec e = estimation;
+        Kernel newKernel = kernel == null ? e.kernel() : kernel;
+        String kernelSource = kernel != null ? "--kernel " + kernel.id()
+                : "kernel \"" + e.kernel().id() + "\"" + (writes("estimation", "kernel")
+                        ? " (" + modelFile.getFileName() + ", line " + lineOf("estimation", "kernel") + ")" : "");
+        BandwidthRule newBandwidth;
+        boolean given;
+        if (bandwidth != null) {
+            if (!newKernel.usesBandwidth() && !(bandwidth instanceof BandwidthRule.Lags lags && lags.lags() == 0)) {
+                throw InputException.general().problem(bandwidthOption + " cannot be used with " + kernelSource
+                        + ": that kernel uses no lags", "leave out " + bandwidthOption + ", or choose a kernel that uses lags ("
+                        + Kernel.idsWithBandwidth() + ")");
+            }
+            String conflict = LongRunOptions.conflict(newKernel, bandwidth).orElse(null);
+            if (conflict != null) {
+                throw InputException.general().problem(bandwidthOption + " cannot be used with " + kernelSource + ": "
+                        + conflict, "give " + commandLineChoices(newKernel));
+            }
+            newBandwidth = bandwidth;
+            given = true;
+        } else if (kernel == null || kernel == e.kernel()) {
+            newBandwidth = e.bandwidth();
+            given = e.bandwidthGiven();
+        } else if (!newKernel.usesBandwidth() || !e.bandwidthGiven()) {
+            newBandwidth = newKernel.defaultBandwidth();
+            given = false;
+        } else {
+            String conflict = LongRunOptions.conflict(newKernel, e.bandwidth()).orElse(null);
+            if (conflict != null) {
+                String key = writes("estimation", "lags") ? "lags" : "bandwidth";
+                throw InputException.general().problem("--kernel " + newKernel.id() + " cannot use the model file's "
+                        + e.bandwidthLabel().replace("lags ", "lags = ") + " (" + modelFile.getFileName() + ", line "
+                        + lineOf("estimation", key) + "): " + conflict,
+                        "add " + commandLineChoices(newKernel) + " to the command");
+            }
+            newBandwidth = e.bandwidth();
+            given = true;
         }
-
-        /** No splits, 15% trimming, no rolling windows. */
-        public static StabilitySpec defaults() {
-            return new StabilitySpec(List.of(), 0.15, Optional.empty(), 1, false);
-        }
+        LongRunOptions options = new LongRunOptions(newKernel, newBandwidth,
+                centered == null ? e.centered() : centered, prewhiten == null ? e.prewhiten() : prewhiten);
+        EstimationSpec updated = e.with(method == null ? e.method() : method, options, given);
+        return withEstimation(restrictions == null ? updated : updated.withRestrictions(restrictions));
     }
 
-    /** The model families this version knows (DESIGN.md section 4). */
-    public enum Family {
-        POWER_UTILITY("power-utility"),
-        RECURSIVE_UTILITY("recursive-utility"),
-        LINEAR_FACTOR("linear-factor"),
-        EXPRESSION("expression");
-
-        private final String id;
-
-        Family(String id) {
-            this.id = id;
+    /** The bandwidth options {@code kernel} accepts, in command-line words. */
+    private static String commandLineChoices(Kernel kernel) {
+        List<String> choices = new ArrayList<>();
+        for (String choice : LongRunOptions.acceptedChoices(kernel)) {
+            choices.add(choice.replace("lags = L", "--lags L").replace("bandwidth = b", "--bandwidth B")
+                    .replace("bandwidth = \"", "--bandwidth ").replace("\"", ""));
         }
-
-        public String id() {
-            return id;
-        }
-
-        /** The family with this id, or empty. */
-        public static Optional<Family> fromId(String id) {
-            for (Family family : values()) {
-                if (family.id.equals(id)) {
-                    return Optional.of(family);
-                }
-            }
-            return Optional.empty();
-        }
+        return choices.size() < 2 ? String.join("", choices)
+                : String.join(", ", choices.subList(0, choices.size() - 1)) + " or " + choices.get(choices.size() - 1);
     }
 
     public RunSpec withEstimation(EstimationSpec replacement) {

@@ -8,6 +8,7 @@ import java.util.Random;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.CommonOps_DDRM;
 import org.junit.jupiter.api.Test;
+import org.orthogon.TestLog;
 import org.orthogon.gmm.EstimationMethod;
 import org.orthogon.gmm.GmmEstimator;
 import org.orthogon.gmm.GmmFit;
@@ -122,7 +123,8 @@ class ModelComparisonTest {
             }
         }
         double rate = rejections / (double) replications;
-        System.out.printf("nested J-difference test: rejection rate at 5%% = %.3f over %d samples%n", rate, replications);
+        TestLog.printf(ModelComparisonTest.class,
+                "nested J-difference test: rejection rate at 5%% = %.3f over %d samples%n", rate, replications);
         assertThat(rate).isBetween(0.025, 0.085);
     }
 

@@ -42,7 +42,7 @@ class CheckCommandTest {
         cli.edit(cli.models.resolve("lumen-power-utility.toml"), "[model]", "start = \"2000-01\"\n\n[model]");
         CliHarness.Result result = cli.run("check", cli.models.resolve("lumen-power-utility.toml").toString());
         assertThat(result.code()).as(result.err()).isZero();
-        assertThat(result.out()).contains("T = 100").contains("WARNING: K = 12 moments against T = 100");
+        assertThat(result.out()).contains("T = 100").contains("WARNING [many-moments] K = 12 moments against T = 100");
     }
 
     @Test

@@ -6,6 +6,7 @@ import java.nio.file.Paths;
 import java.util.LinkedHashMap;
 import java.util.Map;
 import org.junit.jupiter.api.Test;
+import org.orthogon.TestLog;
 import org.orthogon.demo.LumenEconomy;
 import org.orthogon.gmm.GmmEstimator;
 import org.orthogon.gmm.GmmFit;
@@ -128,7 +129,8 @@ class DemoTruthTest {
                     .as("%s %s: estimate %.6f, truth %.6f, SE %.6f (%.2f SE away)", modelFile, entry.getKey(),
                             estimate.estimate(), entry.getValue(), estimate.stdError(), distance)
                     .isLessThan(TOLERANCE_IN_SE);
-            System.out.printf("%s %s: estimate %.6f truth %.6f SE %.6f (%.2f SE)%n", modelFile, entry.getKey(),
+            TestLog.printf(DemoTruthTest.class,
+                    "%s %s: estimate %.6f truth %.6f SE %.6f (%.2f SE)%n", modelFile, entry.getKey(),
                     estimate.estimate(), entry.getValue(), estimate.stdError(), distance);
         }
     }

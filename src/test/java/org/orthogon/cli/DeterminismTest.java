@@ -16,8 +16,9 @@ import tools.jackson.databind.node.ObjectNode;
 
 /**
  * The same inputs give byte-identical results.json, and the same manifest apart from its start
- * time: twice in one JVM, and in two JVMs that run the sensitivity grid (the one parallel part of a
- * fit) on one and on two worker threads.
+ * time (and the --threads argument itself): twice in one JVM, and in fresh JVMs with --threads 1 and
+ * --threads 2 for the parallel parts, the sensitivity grid of a fit and the sup-Wald dates, the null
+ * simulation and the rolling windows of stability.
  */
 class DeterminismTest {
     @TempDir
@@ -51,10 +52,35 @@ class DeterminismTest {
     @Test
     void sensitivityGridOnOneAndTwoThreadsGivesTheSameBytes() throws IOException, InterruptedException {
         Path out = root.resolve("B");
-        Outcome one = childFit(1, out);
-        Outcome two = childFit(2, out);
+        Outcome one = child(out, "fit", model.toString(), "--sensitivity", "--threads", "1");
+        Outcome two = child(out, "fit", model.toString(), "--sensitivity", "--threads", "2");
         assertSame(one, two);
         assertThat(new String(one.results(), StandardCharsets.UTF_8)).contains("\"sensitivity\"");
+    }
+
+    @Test
+    void supWaldAndRollingWindowsOnOneAndTwoThreadsGiveTheSameBytes() throws IOException, InterruptedException {
+        // the linear three-factor model (windows from running sums), and power utility (windows through the
+        // model's own rows, solved by Levenberg-Marquardt); the simulation of the sup-Wald null on several
+        // threads is checked draw for draw in SupWaldSimulationTest
+        for (String[] run : new String[][] {{"lumen-three-factor.toml", "--window", "120", "--step", "60"},
+            {"lumen-power-utility.toml", "--window", "80", "--step", "40", "--no-sup-wald"}}) {
+            Path out = root.resolve("C");
+            List<String> args = new ArrayList<>(List.of("stability", cli.models.resolve(run[0]).toString()));
+            args.addAll(List.of(run).subList(1, run.length));
+            Outcome one = child(out, concat(args, "--threads", "1"));
+            Outcome two = child(out, concat(args, "--threads", "2"));
+            assertSame(one, two);
+            String text = new String(one.results(), StandardCharsets.UTF_8);
+            assertThat(text).contains("\"rolling\"").contains("\"fixed_weight\"");
+            assertThat(text.contains("\"sup_wald\"")).isEqualTo(!List.of(run).contains("--no-sup-wald"));
+        }
+    }
+
+    private static String[] concat(List<String> args, String... more) {
+        List<String> all = new ArrayList<>(args);
+        all.addAll(List.of(more));
+        return all.toArray(String[]::new);
     }
 
     private static void assertSame(Outcome first, Outcome second) {
@@ -62,18 +88,14 @@ class DeterminismTest {
         assertThat(second.manifestWithoutStart()).isEqualTo(first.manifestWithoutStart());
     }
 
-    /**
-     * Runs {@code fit --sensitivity} in a fresh JVM. ActiveProcessorCount alone does not change the
-     * thread count (the common pool keeps one worker for both 1 and 2 processors), so the pool's
-     * parallelism is set too: 0 leaves every grid point to the calling thread, 2 adds two workers.
-     */
-    private Outcome childFit(int threads, Path out) throws IOException, InterruptedException {
+    /** Runs the command line in a fresh JVM with the test's own class path, writing the folder {@code out}. */
+    private Outcome child(Path out, String... args) throws IOException, InterruptedException {
         Path java = Path.of(System.getProperty("java.home"), "bin", "java");
-        List<String> command = List.of(java.toString(), "-XX:ActiveProcessorCount=" + threads,
-                "-Djava.util.concurrent.ForkJoinPool.common.parallelism=" + (threads == 1 ? 0 : threads),
-                "-Djava.awt.headless=true", "-cp", System.getProperty("java.class.path"), Main.class.getName(), "fit",
-                model.toString(), "--sensitivity", "--quiet", "--out", out.toString());
-        Path log = root.resolve("child-" + threads + ".log");
+        List<String> command = new ArrayList<>(List.of(java.toString(), "-Djava.awt.headless=true", "-cp",
+                System.getProperty("java.class.path"), Main.class.getName()));
+        command.addAll(List.of(args));
+        command.addAll(List.of("--quiet", "--out", out.toString()));
+        Path log = root.resolve("child.log");
         Process process = new ProcessBuilder(command).redirectErrorStream(true).redirectOutput(log.toFile()).start();
         assertThat(process.waitFor()).as(Files.readString(log)).isZero();
         return takeAndRemove(out);
@@ -84,6 +106,14 @@ class DeterminismTest {
         ObjectNode manifest = (ObjectNode) JsonMapper.builder().build().readTree(out.resolve("manifest.json").toFile());
         assertThat(manifest.has("started")).isTrue();
         manifest.remove("started");
+        // the arguments name the thread count, the one thing that differs between the runs compared
+        tools.jackson.databind.node.ArrayNode arguments = (tools.jackson.databind.node.ArrayNode) manifest.get("arguments");
+        for (int i = arguments.size() - 1; i >= 0; i--) {
+            if (arguments.get(i).asString().equals("--threads")) {
+                arguments.remove(i + 1);
+                arguments.remove(i);
+            }
+        }
         FuzzTest.deleteTree(out);
         return new Outcome(results, manifest.toString());
     }

@@ -36,9 +36,12 @@ class ErrorCatalogueTest {
     @TempDir
     Path root;
 
-    /** One catalogue entry. */
-    record Case(String id, String model, Setup setup, List<String> extraArgs, int exit, String file, int line,
-            List<String> mentions, String verb) {
+    /**
+     * One catalogue entry. {@code verb} is the command run: "fit", "stability" and "two-pass" get the model file and
+     * --json before the extra arguments; any other verb gets only the extra arguments.
+     */
+    record Case(String id, String verb, String model, Setup setup, List<String> extraArgs, int exit, String file,
+            int line, List<String> mentions) {
     }
 
     @FunctionalInterface
@@ -54,20 +57,20 @@ class ErrorCatalogueTest {
     }
 
     private static Case refused(String id, String model, Setup setup, String file, int line, String... mentions) {
-        return new Case(id, model, setup, List.of(), Main.EXIT_INPUT, file, line, List.of(mentions), "fit");
+        return new Case(id, "fit", model, setup, List.of(), Main.EXIT_INPUT, file, line, List.of(mentions));
     }
 
     private static Case accepted(String id, String model, Setup setup) {
-        return new Case(id, model, setup, List.of(), Main.EXIT_OK, null, 0, List.of(), "fit");
+        return new Case(id, "fit", model, setup, List.of(), Main.EXIT_OK, null, 0, List.of());
     }
 
     private static Case withArgs(Case c, String... args) {
-        return new Case(c.id(), c.model(), c.setup(), List.of(args), c.exit(), c.file(), c.line(), c.mentions(), c.verb());
+        return new Case(c.id(), c.verb(), c.model(), c.setup(), List.of(args), c.exit(), c.file(), c.line(),
+                c.mentions());
     }
 
-    /** The same case run by another verb than fit. */
     private static Case onVerb(String verb, Case c) {
-        return new Case(c.id(), c.model(), c.setup(), c.extraArgs(), c.exit(), c.file(), c.line(), c.mentions(), verb);
+        return new Case(c.id(), verb, c.model(), c.setup(), c.extraArgs(), c.exit(), c.file(), c.line(), c.mentions());
     }
 
     private static Setup editData(String file, UnaryOperator<String> change) {
@@ -245,7 +248,39 @@ class ErrorCatalogueTest {
         cases.add(refused("expression-syntax-error", EXPRESSION, replaceInModel(EXPRESSION, "cons_growth^(-gamma)",
                 "cons_growth^(-gamma"), EXPRESSION, 14, "sdf formula"));
         cases.add(refused("restriction-unknown-parameter", THREE, replaceInModel(THREE, "lags = 4",
-                "lags = 4\nrestrictions = [\"b_SIZ = 0\"]"), THREE, 21, "b_SIZ"));
+                "lags = 4\nrestrictions = [\"b_SIZ = 0\"]"), THREE, 21, "b_SIZ", "did you mean \"b_SIZE\""));
+        cases.add(refused("fewer-moments-than-parameters", POWER, replaceInModel(POWER, "[model]",
+                "assets = [\"S1T1\"]\n\n[model]"), POWER, 15, "2 parameters", "only 1 moment"));
+        // Kernels and bandwidths
+        cases.add(refused("lag-count-for-a-kernel-that-weights-every-lag", POWER, replaceInModel(POWER,
+                "kernel = \"bartlett\"", "kernel = \"quadratic-spectral\""), POWER, 20, "weights every lag",
+                "bandwidth = \"andrews\""));
+        cases.add(refused("newey-west-rule-without-constants", POWER, replaceInModel(POWER, "kernel = \"bartlett\"",
+                "kernel = \"tukey-hanning\"").andThen(replaceInModel(POWER, "lags = 4", "bandwidth = \"newey-west\"")),
+                POWER, 20, "Newey-West", "bandwidth = \"andrews\""));
+        cases.add(refused("bandwidth-for-kernel-none", POWER, replaceInModel(POWER, "kernel = \"bartlett\"",
+                "kernel = \"none\""), POWER, 20, "uses no lags"));
+        cases.add(withArgs(refused("kernel-option-against-the-model-files-lags", POWER, cli -> { }, POWER, 20,
+                "--kernel quadratic-spectral", "--bandwidth andrews"), "--kernel", "quadratic-spectral"));
+        cases.add(withArgs(refused("bandwidth-option-the-kernel-cannot-use", POWER, cli -> { }, "--lags 3", 0,
+                "weights every lag", "--bandwidth andrews"), "--kernel", "quadratic-spectral", "--lags", "3"));
+        cases.add(refused("sample-too-short-for-prewhitening", THREE, replaceInModel(THREE, "[model]",
+                "start = \"2023-12\"\n\n[model]").andThen(replaceInModel(THREE, "lags = 4", "lags = 4\nprewhiten = true")),
+                THREE, 23, "13 observations", "prewhitening"));
+        // Stability options
+        cases.add(withArgs(onVerb("stability", refused("stability-window-longer-than-sample", THREE, cli -> { },
+                "--window", 0, "longer than the sample", "at most 756")), "--window", "5000"));
+        cases.add(withArgs(onVerb("stability", refused("stability-window-too-short", THREE, cli -> { }, "--window",
+                0, "too short", "at least 13")), "--window", "10", "--no-sup-wald"));
+        cases.add(onVerb("stability", refused("stability-trimming-too-small", POWER, replaceInModel(POWER, "lags = 4",
+                "lags = 4\n\n[stability]\ntrimming = 0.04"), POWER, 23, "as few as 11", "at least 0.052")));
+        cases.add(withArgs(onVerb("stability", refused("stability-split-period-too-short", POWER, cli -> { }, "--split",
+                0, "2024Q3 to 2024Q4 has 2 observations")), "--split", "2024-07", "--no-sup-wald"));
+        // Verbs
+        cases.add(withArgs(onVerb("orthogon", refused("program-name-twice", POWER, cli -> { }, "\"orthogon\"", 0,
+                "program's own name")), "fit", "model.toml"));
+        cases.add(withArgs(onVerb("simulate", refused("simulate-over-existing-files", POWER, cli -> { }, "demo-data", 0,
+                "already holds", "--overwrite")), "--out", "{root}/demo-data", "--years", "1"));
         // two-pass
         cases.add(onVerb("two-pass", refused("two-pass-not-linear-factor", POWER, cli -> { }, POWER, 13,
                 "power-utility", "linear-factor")));
@@ -261,6 +296,8 @@ class ErrorCatalogueTest {
         cases.add(withArgs(refused("negative-lags-option", POWER, cli -> { }, "--lags", 0, "negative"), "--lags", "-1"));
         cases.add(withArgs(refused("unknown-kernel-option", POWER, cli -> { }, "gaussian", 0, "quadratic-spectral"),
                 "--kernel", "gaussian"));
+        cases.add(withArgs(refused("threads-option-below-one", POWER, cli -> { }, "--threads", 0, "below one"),
+                "--threads", "0"));
         cases.add(withArgs(refused("s-range-unknown-parameter", POWER, cli -> { }, "--s-range", 0, "gama",
                 "did you mean \"gamma\""), "--s-sets", "--s-range", "gama=0:40"));
         cases.add(withArgs(refused("s-range-malformed", POWER, cli -> { }, "--s-range", 0, "NAME=LOW:HIGH"),
@@ -282,8 +319,10 @@ class ErrorCatalogueTest {
         CliHarness cli = new CliHarness(caseRoot);
         c.setup().apply(cli);
         Path json = caseRoot.resolve("results.json");
-        List<String> args = new ArrayList<>(List.of(c.verb(), cli.models.resolve(c.model()).normalize().toString(), "--json",
-                json.toString()));
+        List<String> args = new ArrayList<>(List.of(c.verb()));
+        if (List.of("fit", "stability", "two-pass").contains(c.verb())) {
+            args.addAll(List.of(cli.models.resolve(c.model()).normalize().toString(), "--json", json.toString()));
+        }
         c.extraArgs().forEach(arg -> args.add(arg.replace("{root}", caseRoot.toString())));
         CliHarness.Result result = cli.run(args.toArray(String[]::new));
         if (c.exit() == Main.EXIT_OK) {

@@ -50,7 +50,8 @@ class FitOutputFolderTest {
         assertThat(Files.readString(out.resolve("results.json"))).isEqualTo(Files.readString(json));
         assertThat(Files.readString(out.resolve("tables/parameters.csv")))
                 .startsWith("parameter,estimate,std. error,Windmeijer s.e.,t-stat,p-value,95% low,95% high\nb_MKT,");
-        assertThat(Files.readString(out.resolve("tables/parameters.tex"))).contains("\\toprule").contains("b\\_TIDE");
+        assertThat(Files.readString(out.resolve("tables/parameters.tex"))).contains("\\toprule")
+                .contains("$b_{\\mathrm{TIDE}}$").contains("\\label{tab:lumen-three-factor-parameters}");
         Document html = Jsoup.parse(out.resolve("report.html").toFile());
         assertThat(html.select("figure.tablewrap table")).hasSize(3);
         assertThat(html.select("figure.chart svg")).hasSize(2);

@@ -109,9 +109,12 @@ class ImportersCommandTest {
 
     @Test
     void aDeflatorInATwoColumnSeriesFileTurnsNominalReturnsReal() throws IOException {
+        // One asset scaled by two instruments: K = 2 moments for the P = 2 parameters (fewer would be refused).
         String base = "[data]\nreturns = \"../demo-data/lumen-wealth-quarterly.csv\"\nreturns_kind = \"gross\"\n"
-                + "macro = \"../demo-data/lumen-consumption-quarterly.csv\"\n";
-        String model = "\n[model]\nfamily = \"power-utility\"\nconsumption_column = \"cons_growth\"\n";
+                + "macro = \"../demo-data/lumen-consumption-quarterly.csv\"\n"
+                + "instruments = \"../demo-data/lumen-instruments-quarterly.csv\"\n";
+        String model = "\n[model]\nfamily = \"power-utility\"\nconsumption_column = \"cons_growth\"\n"
+                + "instrument_columns = [\"const\", \"z_cons\"]\n";
         PreparedRun nominal = ModelAssembler.prepare(ModelFile.read(model("nominal.toml", base
                 + "assets = [\"wealth_nominal\"]\ndeflator = \"../demo-data/lumen-deflator-series.csv\"\n" + model)));
         PreparedRun real = ModelAssembler.prepare(ModelFile.read(model("real.toml", base

@@ -26,7 +26,8 @@ import tools.jackson.databind.json.JsonMapper;
  * src/test/resources/reference/realdata/usmacro_power_utility.R (run with Debian r-base-core
  * 4.2.2.20221110-2) builds gross real per-capita consumption growth, the gross real 3-month T-bill
  * return and the instrument file from it, and computes the two-step estimates, standard errors and
- * J in base R from the formulas of DESIGN.md section 3, sharing no code with Orthogon. The generated
+ * J in base R from the formulas of docs/methods.md (Hansen 1982; Newey and West 1987 for S), sharing no
+ * code with Orthogon. The generated
  * files are committed because the build machines have no R.
  */
 class RealDataCheckTest {

@@ -18,7 +18,7 @@ class DemoDataTest {
             Path shipped = Paths.get("demo-data").resolve(name);
             assertThat(shipped).as("demo-data/%s is committed", name).exists();
             assertThat(Files.readString(folder.resolve(name)))
-                    .as("demo-data/%s must equal `simulate --out demo-data`; regenerate it with that command", name)
+                    .as("demo-data/%s must equal `simulate --out demo-data --overwrite`; regenerate it with that command", name)
                     .isEqualTo(Files.readString(shipped));
         }
     }

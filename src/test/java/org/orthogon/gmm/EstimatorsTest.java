@@ -10,6 +10,7 @@ import org.ejml.dense.row.CommonOps_DDRM;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.ValueSource;
+import org.orthogon.TestLog;
 import org.orthogon.longrun.LongRunOptions;
 import org.orthogon.moments.MomentModel;
 
@@ -96,7 +97,8 @@ class EstimatorsTest {
         for (int j = 0; j < 3; j++) {
             largest = Math.max(largest, Math.abs(a[j] - b[j]) / plain.parameters().get(j).stdError());
         }
-        System.out.printf("moment %d times %.4f: CUE moves by %.1e standard errors, two-step by %.1e%n", index,
+        TestLog.printf(EstimatorsTest.class,
+                "moment %d times %.4f: CUE moves by %.1e standard errors, two-step by %.1e%n", index,
                 factor, cueLargest, largest);
         assertThat(largest).as("two-step change in standard errors").isGreaterThan(1e-4);
     }

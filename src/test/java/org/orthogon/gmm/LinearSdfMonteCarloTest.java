@@ -4,6 +4,7 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import java.util.List;
 import org.junit.jupiter.api.Test;
+import org.orthogon.TestLog;
 import org.orthogon.demo.LumenEconomy;
 import org.orthogon.longrun.BandwidthRule;
 import org.orthogon.longrun.Kernel;
@@ -51,11 +52,13 @@ class LinearSdfMonteCarloTest {
     @Test
     void twoStepJTestHasAboutItsNominalSizeAndIntervalsCoverTheTruth() {
         double[] hc = rates(LongRunOptions.heteroskedasticityConsistent());
-        System.out.printf("Monte Carlo, N = %d, T = %d, %d replications, two-step, HC S: J rejects at 5%% in %.1f%%; "
+        TestLog.printf(LinearSdfMonteCarloTest.class,
+                "Monte Carlo, N = %d, T = %d, %d replications, two-step, HC S: J rejects at 5%% in %.1f%%; "
                 + "95%% intervals cover b_MKT %.1f%%, b_SIZE %.1f%%, b_TIDE %.1f%%%n", ASSETS, YEARS * 12,
                 REPLICATIONS, 100 * hc[0], 100 * hc[1], 100 * hc[2], 100 * hc[3]);
         double[] nw = rates(new LongRunOptions(Kernel.BARTLETT, new BandwidthRule.NeweyWest(), true, false));
-        System.out.printf("Monte Carlo, same samples, Bartlett with the Newey-West (1994) bandwidth: J rejects at 5%% "
+        TestLog.printf(LinearSdfMonteCarloTest.class,
+                "Monte Carlo, same samples, Bartlett with the Newey-West (1994) bandwidth: J rejects at 5%% "
                 + "in %.1f%%; 95%% intervals cover b_MKT %.1f%%, b_SIZE %.1f%%, b_TIDE %.1f%%%n",
                 100 * nw[0], 100 * nw[1], 100 * nw[2], 100 * nw[3]);
         // Acceptance band of issue 4: with 400 replications the binomial standard error of a 5% rate is

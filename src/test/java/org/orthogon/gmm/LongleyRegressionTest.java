@@ -15,6 +15,7 @@ import org.ejml.data.DMatrixRMaj;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.EnumSource;
+import org.orthogon.TestLog;
 import org.orthogon.longrun.LongRunOptions;
 
 /**
@@ -141,7 +142,8 @@ class LongleyRegressionTest {
                 worstEntry = Math.max(worstEntry, Math.abs(v.get(i, j) / expected - 1.0));
             }
         }
-        System.out.printf("Longley %s: largest relative difference from sandwich: standard errors %.2e, "
+        TestLog.printf(LongleyRegressionTest.class,
+                "Longley %s: largest relative difference from sandwich: standard errors %.2e, "
                 + "covariance entries %.2e (relative to themselves)%n", quantity, worstSe, worstEntry);
         for (int i = 0; i < 7; i++) {
             // sandwich 3.0.2: vcovHC(type = "HC0") or NeweyWest(lag = 4, prewhite = FALSE, adjust = FALSE).

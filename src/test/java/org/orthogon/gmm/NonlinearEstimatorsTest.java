@@ -77,7 +77,7 @@ class NonlinearEstimatorsTest {
 
     @Test
     void continuouslyUpdatedObjectiveReselectsAnAutomaticBandwidthAtEveryEvaluation() {
-        // DESIGN.md section 3: the Andrews bandwidth is chosen again for the S of each θ.
+        // docs/methods.md: an automatic (Andrews 1991) bandwidth is chosen again for the S of each θ.
         MomentModel model = powerUtility(5L);
         LongRunOptions andrews = new LongRunOptions(Kernel.BARTLETT, new BandwidthRule.Andrews(), true, false);
         GmmFit cue = GmmEstimator.estimate(model, new double[] {0.99, 5.0},

@@ -55,7 +55,12 @@ class AutocovariancesTest {
 
     static java.util.stream.Stream<org.junit.jupiter.params.provider.Arguments> routes() {
         return java.util.stream.Stream.of(
-                org.junit.jupiter.params.provider.Arguments.of(Kernel.BARTLETT, 4.0, Autocovariances.Route.BANDED),
+                org.junit.jupiter.params.provider.Arguments.of(Kernel.NONE, 0.0, Autocovariances.Route.RANK_K),
+                org.junit.jupiter.params.provider.Arguments.of(Kernel.BARTLETT, 0.5, Autocovariances.Route.RANK_K),
+                org.junit.jupiter.params.provider.Arguments.of(Kernel.BARTLETT, 1.0, Autocovariances.Route.RANK_K),
+                org.junit.jupiter.params.provider.Arguments.of(Kernel.BARTLETT, 4.0, Autocovariances.Route.RANK_K),
+                org.junit.jupiter.params.provider.Arguments.of(Kernel.BARTLETT, 13.0, Autocovariances.Route.RANK_K),
+                org.junit.jupiter.params.provider.Arguments.of(Kernel.BARTLETT, 4.5, Autocovariances.Route.BANDED),
                 org.junit.jupiter.params.provider.Arguments.of(Kernel.PARZEN, 8.0, Autocovariances.Route.BANDED),
                 org.junit.jupiter.params.provider.Arguments.of(Kernel.TUKEY_HANNING, 9.5, Autocovariances.Route.BANDED),
                 org.junit.jupiter.params.provider.Arguments.of(Kernel.TRUNCATED, 3.0, Autocovariances.Route.BANDED),
@@ -81,13 +86,16 @@ class AutocovariancesTest {
             }
         }
         Autocovariances ac = Autocovariances.of(f, true);
-        assertThat(ac.route(ac.lastLag(kernel, b))).isEqualTo(expected);
+        assertThat(ac.route(kernel, b)).isEqualTo(expected);
         DMatrixRMaj fast = ac.longRun(kernel, b);
         // common practice, no source: S = Γ_0 + Σ_j k(j/b)(Γ_j + Γ_j'), summed here lag by lag from gamma(j)
         DMatrixRMaj sum = ac.gamma(0);
         for (int j = 1; j <= ac.lastLag(kernel, b); j++) {
             DMatrixRMaj g = ac.gamma(j);
             double w = kernel.weight(j / b);
+            if (w == 0.0) {
+                continue;
+            }
             CommonOps_DDRM.addEquals(sum, w, g);
             CommonOps_DDRM.addEquals(sum, w, CommonOps_DDRM.transpose(g, null));
         }

@@ -12,7 +12,7 @@ import org.junit.jupiter.params.provider.MethodSource;
 /**
  * Automatic bandwidths against sandwich's Andrews (1991) and Newey-West (1994) bandwidth functions. Mapping: sandwich gives a
  * column named "(Intercept)" weight 0 by default (a regression intercept's score); moment columns
- * have no such role and DESIGN.md asks for equal weights, so the R script passes weights = 1 for
+ * have no such role and every moment counts the same in Orthogon's rules, so the R script passes weights = 1 for
  * every column, which is what {@link BandwidthRule.Andrews} and {@link BandwidthRule.NeweyWest} use.
  */
 class BandwidthReferenceTest {

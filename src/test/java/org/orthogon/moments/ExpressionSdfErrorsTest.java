@@ -19,7 +19,7 @@ class ExpressionSdfErrorsTest {
         columns.put("cons_growth", data.growth);
         columns.put("RF", data.riskfree);
         return new ExpressionSdfErrors(formula, List.of("beta", "gamma"), columns, data.gross, ASSETS,
-                ExpressionSdfErrors.PayoffKind.GROSS);
+                Payoff.GROSS);
     }
 
     @ParameterizedTest(name = "seed {0}")
@@ -58,7 +58,7 @@ class ExpressionSdfErrorsTest {
         columns.put("MKT", mkt);
         columns.put("SIZE", size);
         ExpressionSdfErrors formula = new ExpressionSdfErrors("1 - b_MKT*MKT - b_SIZE*SIZE", List.of("b_MKT", "b_SIZE"),
-                columns, data.excess, ASSETS, ExpressionSdfErrors.PayoffKind.EXCESS);
+                columns, data.excess, ASSETS, Payoff.EXCESS);
         double[] b = {2.2, 1.7};
         double[] expected = FamilyFixtures.errors(new LinearFactorErrors(data.excess, data.factors, ASSETS,
                 List.of("MKT", "SIZE")), b);
@@ -116,7 +116,7 @@ class ExpressionSdfErrorsTest {
         Map<String, double[]> clash = Map.of("beta", data.growth);
         assertThat(catchThrowableOfType(ExpressionSdfErrors.ExpressionException.class,
                 () -> new ExpressionSdfErrors("beta * gamma", List.of("beta", "gamma"), clash, data.gross, ASSETS,
-                        ExpressionSdfErrors.PayoffKind.GROSS)).getMessage()).contains("both a parameter and a data column");
+                        Payoff.GROSS)).getMessage()).contains("both a parameter and a data column");
     }
 
     /** Comparison of two moment models' contributions. */

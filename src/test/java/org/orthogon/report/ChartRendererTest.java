@@ -29,6 +29,19 @@ class ChartRendererTest {
     }
 
     @Test
+    void printPngsHaveTwiceThePixelsOfTheLayoutAndScattersAreSquare() throws IOException {
+        for (Chart chart : Samples.report().charts()) {
+            int width = ChartRenderer.width(chart);
+            int height = ChartRenderer.height(chart);
+            assertThat(width == height).as(chart.id()).isEqualTo(chart instanceof Chart.Scatter);
+            BufferedImage image = ImageIO.read(new ByteArrayInputStream(ChartRenderer.png(chart, width, height,
+                    ChartRenderer.PRINT_SCALE)));
+            assertThat(image.getWidth()).as(chart.id()).isEqualTo(2 * width);
+            assertThat(image.getHeight()).as(chart.id()).isEqualTo(2 * height);
+        }
+    }
+
+    @Test
     void svgDocumentsKeepTitlesLabelsAndRotatedTicksAsText() {
         for (Chart chart : Samples.report().charts()) {
             String svg = ChartRenderer.svgDocument(chart, ChartRenderer.WIDTH, ChartRenderer.HEIGHT);

@@ -39,7 +39,8 @@ class HtmlReportTest {
             assertThat(figure).as(chart.id()).isNotNull();
             Element svg = figure.selectFirst("svg");
             assertThat(svg).as(chart.id()).isNotNull();
-            assertThat(svg.attr("viewBox")).isEqualTo("0 0 760 460");
+            // Square where a 45-degree line is drawn, so the line is at 45 degrees; wide otherwise.
+            assertThat(svg.attr("viewBox")).isEqualTo(chart instanceof Chart.Scatter ? "0 0 560 560" : "0 0 760 460");
             assertThat(svg.select("text").eachText()).as(chart.id()).contains(chart.yLabel(), chart.xLabel());
         }
         assertThat(page.getElementById("chart-realised-vs-implied").select("text").eachText()).contains("S1T1", "S3T4");

@@ -41,8 +41,10 @@ class TableWritersTest {
 
     @Test
     void latexUsesBooktabsBalancesEnvironmentsAndPutsErrorsUnderEstimates() {
-        String tex = LatexTables.write(Samples.parameters());
+        String tex = LatexTables.write(Samples.parameters(), "lumen-three-factor");
         assertBalanced(tex);
+        assertThat(tex).contains("\\label{tab:lumen-three-factor-parameters}")
+                .contains("\\resizebox{\\ifdim\\width>\\linewidth\\linewidth\\else\\width\\fi}{!}{%");
         assertThat(tex).contains("\\toprule\nparameter & estimate & p-value \\\\\n\\midrule\n")
                 .contains("b\\_TIDE & 4.718808 & 0.0006 \\\\\n & (1.368757) &  \\\\\n")
                 .contains("b\\_MKT & -0.500000 & 0.5000 \\\\\n & (n/a) &  \\\\\n\\bottomrule\n")
@@ -57,19 +59,59 @@ class TableWritersTest {
     void latexEscapesEverySpecialCharacter() {
         assertThat(LatexTables.escape("& % $ # _ { } ~ ^ \\"))
                 .isEqualTo("\\& \\% \\$ \\# \\_ \\{ \\} \\textasciitilde{} \\textasciicircum{} \\textbackslash{}");
-        String tex = LatexTables.write(Samples.awkward());
+        String tex = LatexTables.write(Samples.awkward(), "run");
         assertBalanced(tex);
         assertThat(tex).contains("\\caption{Harbour \\& dock 100\\% \"special\" \\#1}")
-                .contains("a\\_b \\{c\\} \\textasciitilde{}d \\textasciicircum{}e \\textbackslash{}f \\$g | h, \"q\" & n/a")
+                .contains("a\\_b \\{c\\} \\textasciitilde{}d \\textasciicircum{}e \\textbackslash{}f \\$g \\textbar{} h, \"q\" & n/a")
                 .contains("Costs in \\$ at 5\\% \\& rising; x\\_1 \\textasciitilde{} y\\textasciicircum{}2 "
                         + "\\{braced\\} \\#tag \\textbackslash{} end");
         // Outside the escapes, no special character is left bare in the body.
         String body = tex.substring(tex.indexOf("\\midrule"), tex.indexOf("\\end{table}"))
-                .replaceAll("\\\\(textasciitilde|textasciicircum|textbackslash|par|bottomrule|midrule|smallskip|"
+                .replaceAll("\\\\(textasciitilde|textasciicircum|textbackslash|textbar|par|bottomrule|midrule|smallskip|"
                         + "footnotesize|end|begin)(\\{\\})?", "").replaceAll("\\\\[&%$#_{}]", "")
                 .replace("\\\\", "").replace(" & ", " ");
         assertThat(body).doesNotContain("%").doesNotContain("$").doesNotContain("#").doesNotContain("_")
                 .doesNotContain("~").doesNotContain("^");
+    }
+
+    @Test
+    void latexSetsParameterNamesAndSymbolsAsMathematics() {
+        // Common practice in typesetting, no source: Greek names as letters, factor names as upright subscripts.
+        assertThat(LatexTables.symbol("beta")).isEqualTo("$\\beta$");
+        assertThat(LatexTables.symbol("gamma")).isEqualTo("$\\gamma$");
+        assertThat(LatexTables.symbol("a")).isEqualTo("$a$");
+        assertThat(LatexTables.symbol("b_MKT")).isEqualTo("$b_{\\mathrm{MKT}}$");
+        assertThat(LatexTables.symbol("mu_SIZE")).isEqualTo("$\\mu_{\\mathrm{SIZE}}$");
+        assertThat(LatexTables.symbol("b_MKT*z_growth")).isEqualTo("$b_{\\mathrm{MKT}\\times\\mathrm{z\\_growth}}$");
+        assertThat(LatexTables.symbol("theta 2")).isEqualTo("theta 2");
+        assertThat(LatexTables.escape("mean |α|")).isEqualTo("mean \\textbar{}$\\alpha$\\textbar{}");
+        assertThat(LatexTables.escape("cross-sectional R²")).isEqualTo("cross-sectional R$^{2}$");
+        assertThat(LatexTables.escape("χ²")).isEqualTo("$\\chi^{2}$");
+        Table table = Table.builder("parameters", "Estimates", "parameter", "estimate")
+                .row(Cell.parameter("beta"), Cell.number(0.97)).row(Cell.parameter("b_SIZE"), Cell.number(1.5)).build();
+        assertThat(LatexTables.write(table, "m")).contains("$\\beta$ & 0.970000 \\\\\n")
+                .contains("$b_{\\mathrm{SIZE}}$ & 1.500000");
+        assertThat(MarkdownTables.write(table)).contains("| beta | 0.970000 |");
+    }
+
+    @Test
+    void aLongTableIsSplitIntoFloatsThatFitAPage() {
+        Table.Builder builder = Table.builder("sensitivity", "Many rows", "kernel", "p-value");
+        for (int i = 0; i < 2 * LatexTables.FLOAT_LINES + 1; i++) {
+            builder.row(Cell.text("bartlett"), Cell.fixed(i / 100.0, 4));
+        }
+        String tex = LatexTables.write(builder.note("the note").build(), "m");
+        assertBalanced(tex);
+        assertThat(tex.split("\\\\begin\\{table\\}", -1)).hasSize(4);
+        assertThat(tex).contains("\\label{tab:m-sensitivity}\n").contains("\\label{tab:m-sensitivity-2}")
+                .contains("\\label{tab:m-sensitivity-3}").contains("\\caption{Many rows (continued)}");
+        assertThat(tex.indexOf("the note")).isGreaterThan(tex.lastIndexOf("\\begin{table}"));
+        // Rows with a standard error under them take two lines, so half as many fit one float.
+        Table.Builder stacked = Table.builder("windows", "Windows", "window", "b", "se b").errorUnder("b", "se b");
+        for (int i = 0; i < LatexTables.FLOAT_LINES / 2 + 1; i++) {
+            stacked.row(Cell.text("w" + i), Cell.number(1), Cell.number(0.1));
+        }
+        assertThat(LatexTables.write(stacked.build(), "m").split("\\\\begin\\{table\\}", -1)).hasSize(3);
     }
 
     @Test

@@ -36,8 +36,9 @@ class ModelFileTest {
     void readsTheShippedPowerUtilityFile() {
         RunSpec spec = ModelFile.read(Paths.get("models/lumen-power-utility.toml"));
         assertThat(spec.title()).isEqualTo("Power utility on the Lumen size/tide portfolios");
-        assertThat(spec.model().family()).isEqualTo(RunSpec.Family.POWER_UTILITY);
-        assertThat(spec.model().consumptionColumn()).contains("cons_growth");
+        assertThat(spec.model().family()).isSameAs(PowerUtilitySpec.FAMILY);
+        assertThat(spec.model()).isInstanceOfSatisfying(PowerUtilitySpec.class,
+                power -> assertThat(power.consumption().growthColumn()).contains("cons_growth"));
         assertThat(spec.model().startValues()).containsEntry("beta", 0.99).containsEntry("gamma", 2.0);
         assertThat(spec.estimation().method()).isEqualTo(EstimationMethod.TWO_STEP);
         assertThat(spec.estimation().kernel()).isEqualTo(Kernel.BARTLETT);
@@ -50,8 +51,8 @@ class ModelFileTest {
     void defaultsApplyWhenEstimationIsOmitted() throws IOException {
         RunSpec spec = ModelFile.read(write(MINIMAL));
         assertThat(spec.title()).isEqualTo("model");
-        assertThat(spec.data().returnsKind()).isEqualTo("gross");
-        assertThat(spec.data().units()).isEqualTo("decimal");
+        assertThat(spec.data().returnsKind()).isEqualTo(org.orthogon.data.ReturnKind.GROSS);
+        assertThat(spec.data().units()).isEqualTo(org.orthogon.data.Units.DECIMAL);
         assertThat(spec.estimation().method()).isEqualTo(EstimationMethod.TWO_STEP);
         assertThat(spec.estimation().centered()).isTrue();
         assertThat(spec.estimation().prewhiten()).isFalse();
