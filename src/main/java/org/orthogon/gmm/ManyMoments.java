@@ -38,6 +38,11 @@ public final class ManyMoments {
         return 1.0 + 2.0 * sum;
     }
 
+    /** True when a warning text is this rule's warning. */
+    public static boolean describes(String warning) {
+        return warning.contains(" moments against T = ") && warning.contains("(K² v / T = ");
+    }
+
     /** K² v / T. */
     public static double load(int moments, int observations, Kernel kernel, double bandwidth) {
         return (double) moments * moments * varianceFactor(kernel, bandwidth, observations) / observations;

@@ -81,6 +81,8 @@ class RobustInferenceCommandTest {
                 "--json", json.toString());
         assertThat(result.code()).as(result.err()).isZero();
         assertThat(result.out()).contains("Windmeijer s.e.");
+        // K² v / T = 144 x 3.4 / 252 = 1.94 > 1.5 (Bartlett 4 lags): the many-moments warning, once, from the fit.
+        assertThat(result.out().split("K² v / T = 1.94", -1)).hasSize(2);
         JsonNode node = JsonMapper.builder().build().readTree(json.toFile());
         // windmeijer_values.csv of the reference script: 0.008748467412488465 and 2.06247839740364
         assertThat(node.at("/parameters/0/std_error_windmeijer").asDouble()).isCloseTo(0.0087484674, within(1e-8));
