@@ -7,6 +7,12 @@ import java.util.List;
 import java.util.concurrent.Callable;
 import org.orthogon.analysis.SensitivityGrid;
 import org.orthogon.gmm.GmmFit;
+import org.orthogon.gmm.GmmOptions;
+import org.orthogon.gmm.WindmeijerCorrection;
+import org.orthogon.report.RobustSetsReport;
+import org.orthogon.robust.RobustSetOptions;
+import org.orthogon.robust.RobustSets;
+import java.util.Optional;
 import org.orthogon.report.CheckReport;
 import org.orthogon.report.ConsoleReport;
 import org.orthogon.report.FitReport;
@@ -46,6 +52,9 @@ final class FitCommand implements Callable<Integer> {
             + "rules; with and without prewhitening) and flag verdicts that differ at 5%%")
     boolean sensitivity;
 
+    @Mixin
+    RobustSetArguments robustSets;
+
     @picocli.CommandLine.Spec
     picocli.CommandLine.Model.CommandSpec commandSpec;
 
@@ -56,9 +65,22 @@ final class FitCommand implements Callable<Integer> {
         output.checkEarly(folderName);
         int threadCount = threads.count();
         RunSpec spec = overrides.apply(ModelFile.read(modelFile));
+        RobustSetOptions robustOptions = robustSets.options(spec.estimation().confidenceLevel());
+        if (robustOptions != null && spec.model() instanceof org.orthogon.spec.BetaPricingSpec) {
+            throw org.orthogon.data.InputException.general().problem("--s-sets cannot be used with the beta-pricing "
+                    + "family of " + modelFile.getFileName() + ": the S and K statistics invert S at every parameter "
+                    + "value, and the S of this system is singular by construction",
+                    "leave out --s-sets; the family's GMM standard errors use S but never its inverse");
+        }
         FittedRun run = FittedRun.of(spec);
         PreparedRun prepared = run.prepared();
+        GmmOptions gmmOptions = FittedRun.options(spec, prepared);
+        RobustSetArguments.checkNames(robustOptions, prepared.moments().parameterNames(), gmmOptions.bounds());
         GmmFit fit = run.fit();
+        Optional<WindmeijerCorrection.Result> windmeijer = WindmeijerCorrection.of(prepared.moments(),
+                prepared.startValues(), gmmOptions, fit);
+        RobustSets.Analysis robust = robustOptions == null ? null : RobustSets.compute(prepared.moments(), fit,
+                gmmOptions.longRun(), gmmOptions.smallSample(), gmmOptions.bounds(), robustOptions);
         List<SensitivityGrid.SensitivityRow> grid = sensitivity
                 ? SensitivityGrid.run(prepared.moments(), prepared.startValues(), fit, spec.estimation().centered(),
                         choice -> FittedRun.options(spec.withEstimation(spec.estimation().withLongRun(choice)), prepared),
@@ -67,6 +89,10 @@ final class FitCommand implements Callable<Integer> {
         List<FittedRun.RestrictionTest> restrictions = run.restrictionTests();
         ObjectNode results = JsonResults.fit(spec, prepared.sample(), fit);
         JsonResults.addInputWarnings(results, prepared.warnings());
+        JsonResults.addWindmeijer(results, fit, windmeijer);
+        if (robust != null) {
+            RobustSetsReport.addTo(results, robust);
+        }
         if (!restrictions.isEmpty()) {
             JsonResults.addRestrictions(results, restrictions);
         }
@@ -81,14 +107,18 @@ final class FitCommand implements Callable<Integer> {
         Path folder = null;
         if (output.requested()) {
             folder = FitReport.writeFolder(output.target(folderName), output.overwrite, results, spec, prepared, fit,
-                    premia.orElse(null), restrictions, grid,
+                    premia.orElse(null), restrictions, grid, new FitReport.Extras(windmeijer.orElse(null), robust),
                     new Manifest.Run("fit", commandSpec.commandLine().getParseResult().originalArgs(),
                             Version.current(), started, Manifest.seeds(fit)));
         }
         if (!output.quiet) {
             PrintWriter out = commandSpec.commandLine().getOut();
-            out.print(ConsoleReport.render(spec, prepared, fit, restrictions));
+            out.print(ConsoleReport.render(spec, prepared, fit, restrictions,
+                    windmeijer.map(WindmeijerCorrection.Result::stdErrors).orElse(null)));
             premia.ifPresent(p -> out.print(ConsoleReport.renderRiskPremia(p)));
+            if (robust != null) {
+                out.print(RobustSetsReport.render(robust));
+            }
             if (sensitivity) {
                 out.print("\n" + SensitivityReport.render(grid, FitReport.mainParameters(spec,
                         prepared.moments().parameterNames())));

@@ -27,26 +27,50 @@ public final class ConsoleReport {
     /** As {@link #render(RunSpec, SampleInfo, GmmFit, List)}, with the Wald tests of the restrictions. */
     public static String render(RunSpec spec, SampleInfo sample, GmmFit fit, List<String> dataNotes,
             List<FittedRun.RestrictionTest> restrictions) {
+        return render(spec, sample, fit, dataNotes, restrictions, null);
+    }
+
+    /**
+     * As above, with Windmeijer's (2005) corrected standard errors in a column beside the usual ones when
+     * {@code windmeijer} is not null.
+     */
+    public static String render(RunSpec spec, SampleInfo sample, GmmFit fit, List<String> dataNotes,
+            List<FittedRun.RestrictionTest> restrictions, double[] windmeijer) {
         java.util.Optional<BetaPricingView> beta = BetaPricingView.of(spec, fit);
         StringBuilder out = new StringBuilder();
         out.append(spec.title()).append('\n');
         out.append(String.format(Locale.ROOT, "  %s, %s GMM, %s %s to %s (T = %d), %s, %s%n",
-                beta.map(BetaPricingView::describe).orElse(spec.model().family().id() + " SDF"), fit.method().id(), sample.frequency(), sample.start(), sample.end(),
+                beta.map(BetaPricingView::describe).orElse(spec.model().family().id() + " SDF"), fit.method().id(),
+                sample.frequency(), sample.start(), sample.end(),
                 sample.observations(), count(fit.momentCount(), "moment"), count(fit.parameters().size(), "parameter")));
         out.append("  long-run covariance: ").append(describeLongRun(fit)).append("\n\n");
 
         out.append("Parameters\n");
         String level = String.format(Locale.ROOT, "%.0f%%", 100 * fit.confidenceLevel());
-        TextTable parameters = new TextTable(List.of("parameter", "estimate", "std. error", "t-stat", "p-value",
-                level + " low", level + " high"));
+        List<String> header = new java.util.ArrayList<>(List.of("parameter", "estimate", "std. error", "t-stat",
+                "p-value", level + " low", level + " high"));
+        if (windmeijer != null) {
+            header.add(3, "Windmeijer s.e.");
+        }
+        TextTable parameters = new TextTable(header);
         List<ConfidenceInterval> intervals = fit.confidenceIntervals();
         int shown = beta.map(view -> view.headline().size()).orElse(fit.parameters().size());
         for (int i = 0; i < shown; i++) {
             ParameterEstimate p = fit.parameters().get(i);
-            parameters.row(List.of(p.name(), number(p.estimate()), number(p.stdError()), fixed(p.tStat(), 2),
-                    fixed(p.pValue(), 4), number(intervals.get(i).lower()), number(intervals.get(i).upper())));
+            List<String> row = new java.util.ArrayList<>(List.of(p.name(), number(p.estimate()), number(p.stdError()),
+                    fixed(p.tStat(), 2), fixed(p.pValue(), 4), number(intervals.get(i).lower()),
+                    number(intervals.get(i).upper())));
+            if (windmeijer != null) {
+                row.add(3, number(windmeijer[i]));
+            }
+            parameters.row(row);
         }
-        out.append(parameters.render("  ")).append('\n');
+        out.append(parameters.render("  "));
+        if (windmeijer != null) {
+            out.append("  Windmeijer s.e.: corrected for the estimated weight of two-step GMM (Windmeijer 2005); "
+                    + "t-stat, p-value and interval use the usual s.e.\n");
+        }
+        out.append('\n');
         beta.ifPresent(view -> out.append("  ").append(view.timeSeriesNote("in the table below")).append("\n\n")
                 .append(view.console()).append('\n'));
 
@@ -75,11 +99,11 @@ public final class ConsoleReport {
 
         out.append(renderRestrictions(restrictions));
         GmmDiagnostics d = fit.diagnostics();
-        out.append(String.format(Locale.ROOT, "%ndiagnostics: condition number of S %s%s, of %s %s; %d solver "
-                + "iterations, %d weight updates, %s%n", number(d.conditionS()),
+        out.append(String.format(Locale.ROOT, "%ndiagnostics: condition number of S %s%s, of %s %s; smallest singular "
+                + "value of the scaled D %s; %d solver iterations, %d weight updates, %s%n", number(d.conditionS()),
                 beta.isPresent() ? " (singular by construction, never inverted)" : "", beta.isPresent() ? "aD" : "D'WD",
-                number(d.conditionDWD()),
-                d.solverIterations(), d.weightUpdates(), d.clean() ? "converged" : "NOT CLEAN"));
+                number(d.conditionDWD()), fixed(d.smallestSingularValue(), 3), d.solverIterations(), d.weightUpdates(),
+                d.clean() ? "converged" : "NOT CLEAN"));
         if (!fit.warnings().isEmpty() || !dataNotes.isEmpty()) {
             out.append('\n');
             for (String note : dataNotes) {
@@ -99,7 +123,13 @@ public final class ConsoleReport {
      */
     public static String render(RunSpec spec, PreparedRun prepared, GmmFit fit,
             List<FittedRun.RestrictionTest> restrictions) {
-        String text = render(spec, prepared.sample(), fit, prepared.notes(), restrictions);
+        return render(spec, prepared, fit, restrictions, null);
+    }
+
+    /** As above, with Windmeijer's corrected standard errors in a column when {@code windmeijer} is not null. */
+    public static String render(RunSpec spec, PreparedRun prepared, GmmFit fit,
+            List<FittedRun.RestrictionTest> restrictions, double[] windmeijer) {
+        String text = render(spec, prepared.sample(), fit, prepared.notes(), restrictions, windmeijer);
         if (prepared.warnings().isEmpty()) {
             return text;
         }

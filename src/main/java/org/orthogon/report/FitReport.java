@@ -31,12 +31,29 @@ public final class FitReport {
     }
 
     /**
+     * What a fit may add to its report beyond the estimates, each null when absent: Windmeijer's corrected
+     * standard errors, the weak-identification-robust sets.
+     */
+    public record Extras(org.orthogon.gmm.WindmeijerCorrection.Result windmeijer,
+            org.orthogon.robust.RobustSets.Analysis robust) {
+        /** Nothing extra. */
+        public static final Extras NONE = new Extras(null, null);
+    }
+
+    /**
      * The document of one fit with the risk premia of a demeaned linear SDF (null when there are none), the
      * Wald tests of its restrictions and the rows of its kernel-and-bandwidth sensitivity grid (either list
      * may be empty).
      */
     public static Report build(RunSpec spec, PreparedRun prepared, GmmFit fit, FittedRun.RiskPremiumEstimates premia,
             List<FittedRun.RestrictionTest> restrictions, List<SensitivityGrid.SensitivityRow> sensitivity) {
+        return build(spec, prepared, fit, premia, restrictions, sensitivity, Extras.NONE);
+    }
+
+    /** As above, with Windmeijer's standard errors and the robust sets when {@code extras} holds them. */
+    public static Report build(RunSpec spec, PreparedRun prepared, GmmFit fit, FittedRun.RiskPremiumEstimates premia,
+            List<FittedRun.RestrictionTest> restrictions, List<SensitivityGrid.SensitivityRow> sensitivity,
+            Extras extras) {
         var sample = prepared.sample();
         java.util.Optional<BetaPricingView> beta = BetaPricingView.of(spec, fit);
         Report.Builder report = Report.builder(spec.title()).key(spec.modelFile().getFileName().toString()
@@ -49,7 +66,8 @@ public final class FitReport {
                         + ConsoleReport.count(fit.momentCount(), "moment") + ", P = "
                         + ConsoleReport.count(fit.parameters().size(), "parameter"))
                 .subtitle("Long-run covariance: " + ConsoleReport.describeLongRun(fit));
-        report.section("Parameters").table(parameters(fit, beta));
+        report.section("Parameters").table(parameters(fit, extras.windmeijer() == null ? null
+                : extras.windmeijer().stdErrors(), beta));
         beta.ifPresent(view -> report.table(view.table()));
         if (premia != null) {
             report.table(riskPremia(premia));
@@ -71,6 +89,9 @@ public final class FitReport {
         if (!sensitivity.isEmpty()) {
             report.section("Sensitivity to the long-run covariance")
                     .table(SensitivityReport.table(sensitivity, mainParameters(spec, fit.parameterNames())));
+        }
+        if (extras.robust() != null) {
+            RobustSetsReport.addSection(report, extras.robust());
         }
         if (!prepared.notes().isEmpty()) {
             report.section("Data preparation");
@@ -113,29 +134,47 @@ public final class FitReport {
     public static Path writeFolder(Path target, boolean overwrite, ObjectNode results, RunSpec spec,
             PreparedRun prepared, GmmFit fit, FittedRun.RiskPremiumEstimates premia,
             List<FittedRun.RestrictionTest> restrictions, List<SensitivityGrid.SensitivityRow> sensitivity,
-            Manifest.Run run) {
-        return ReportFiles.publish(target, overwrite, build(spec, prepared, fit, premia, restrictions, sensitivity),
-                results, run, List.of(spec),
+            Extras extras, Manifest.Run run) {
+        return ReportFiles.publish(target, overwrite, build(spec, prepared, fit, premia, restrictions, sensitivity,
+                extras), results, run, List.of(spec),
                 List.of(prepared.inputs()));
     }
 
     /** The parameter table, standard errors under the estimates. */
     public static Table parameters(GmmFit fit) {
-        return parameters(fit, java.util.Optional.empty());
+        return parameters(fit, null);
     }
 
-    /** The parameter table; for the beta-pricing system only λ, with a note pointing to the time-series table. */
-    private static Table parameters(GmmFit fit, java.util.Optional<BetaPricingView> beta) {
+    /** The parameter table, with Windmeijer's corrected standard errors in a column when given. */
+    public static Table parameters(GmmFit fit, double[] windmeijer) {
+        return parameters(fit, windmeijer, java.util.Optional.empty());
+    }
+
+    /** The same; for the beta-pricing system only λ, with a note pointing to the time-series table. */
+    private static Table parameters(GmmFit fit, double[] windmeijer, java.util.Optional<BetaPricingView> beta) {
         String level = String.format(Locale.ROOT, "%.0f%%", 100 * fit.confidenceLevel());
-        Table.Builder table = Table.builder("parameters", "Parameter estimates", "parameter", "estimate",
-                "std. error", "t-stat", "p-value", level + " low", level + " high").errorUnder("estimate", "std. error");
+        List<String> header = new ArrayList<>(List.of("parameter", "estimate", "std. error", "t-stat", "p-value",
+                level + " low", level + " high"));
+        if (windmeijer != null) {
+            header.add(3, "Windmeijer s.e.");
+        }
+        Table.Builder table = Table.builder("parameters", "Parameter estimates", header)
+                .errorUnder("estimate", "std. error");
         List<ConfidenceInterval> intervals = fit.confidenceIntervals();
         int shown = beta.map(view -> view.headline().size()).orElse(fit.parameters().size());
         for (int i = 0; i < shown; i++) {
             ParameterEstimate p = fit.parameters().get(i);
-            table.row(Cell.parameter(p.name()), Cell.number(p.estimate()), Cell.number(p.stdError()),
-                    Cell.fixed(p.tStat(), 2), Cell.fixed(p.pValue(), 4), Cell.number(intervals.get(i).lower()),
-                    Cell.number(intervals.get(i).upper()));
+            List<Cell> row = new ArrayList<>(List.of(Cell.parameter(p.name()), Cell.number(p.estimate()),
+                    Cell.number(p.stdError()), Cell.fixed(p.tStat(), 2), Cell.fixed(p.pValue(), 4),
+                    Cell.number(intervals.get(i).lower()), Cell.number(intervals.get(i).upper())));
+            if (windmeijer != null) {
+                row.add(3, Cell.number(windmeijer[i]));
+            }
+            table.row(row);
+        }
+        if (windmeijer != null) {
+            table.note("Windmeijer s.e.: corrected for the estimated weight of two-step GMM (Windmeijer 2005, "
+                    + "Journal of Econometrics 126); t-statistics, p-values and intervals use the usual standard errors.");
         }
         ChiSquareTest over = fit.overidentification();
         beta.ifPresent(view -> table.note(view.timeSeriesNote("in the table time-series")));

@@ -310,6 +310,8 @@ class ErrorCatalogueTest {
                 "lambda_0"));
         cases.add(refused("beta-pricing-too-few-assets", BETA, replaceInModel(BETA, "[model]",
                 "assets = [\"S1T1\", \"S1T2\", \"S1T3\"]\n\n[model]"), BETA, 22, "at least 4 test assets"));
+        cases.add(withArgs(refused("beta-pricing-s-sets", BETA, cli -> { }, "--s-sets", 0, "singular by construction"),
+                "--s-sets"));
         cases.add(withArgs(onVerb("compare", refused("compare-beta-pricing", BETA, cli -> { }, BETA, 19,
                 "beta-pricing", "linear-factor")), "{root}/models/" + THREE, "{root}/models/" + BETA));
         // Command line
@@ -320,6 +322,14 @@ class ErrorCatalogueTest {
                 "--kernel", "gaussian"));
         cases.add(withArgs(refused("threads-option-below-one", POWER, cli -> { }, "--threads", 0, "below one"),
                 "--threads", "0"));
+        cases.add(withArgs(refused("s-range-unknown-parameter", POWER, cli -> { }, "--s-range", 0, "gama",
+                "did you mean \"gamma\""), "--s-sets", "--s-range", "gama=0:40"));
+        cases.add(withArgs(refused("s-range-malformed", POWER, cli -> { }, "--s-range", 0, "NAME=LOW:HIGH"),
+                "--s-sets", "--s-range", "gamma=40:0"));
+        cases.add(withArgs(refused("s-range-outside-bounds", POWER, cli -> { }, "--s-range", 0, "outside the bounds"),
+                "--s-sets", "--s-range", "beta=-2:-1"));
+        cases.add(withArgs(refused("s-points-too-few", POWER, cli -> { }, "--s-points", 0, "at least 11"),
+                "--s-sets", "--s-points", "5"));
         return cases;
     }
 
