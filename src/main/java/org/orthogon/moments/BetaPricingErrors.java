@@ -263,6 +263,11 @@ public final class BetaPricingErrors implements ObservationErrors {
         }
 
         @Override
+        public int focalParameters() {
+            return crossSectionCoefficients();
+        }
+
+        @Override
         public DMatrixRMaj matrix(double[] theta) {
             int n = assets.size();
             int k = factorNames.size();

@@ -30,6 +30,13 @@ public interface FixedSelection {
      */
     double[] solve();
 
+    /**
+     * How many of the parameters, counted from the first, carry the model's pricing restriction (the risk
+     * premia of the beta-pricing system); the rest are first-pass estimates (time-series intercepts and
+     * betas). Tests of parameter stability compare these only.
+     */
+    int focalParameters();
+
     /** A sample on which the selected moments have no unique solution (collinear factors or betas). */
     final class Unsolvable extends RuntimeException {
         private static final long serialVersionUID = 1L;

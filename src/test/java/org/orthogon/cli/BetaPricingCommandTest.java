@@ -75,6 +75,45 @@ class BetaPricingCommandTest {
         }
     }
 
+    @Test
+    void stabilityComparesTheRiskPremiaOnly() throws Exception {
+        // The draws are i.i.d., so the premia are the same in every period: the test should not reject.
+        CliHarness cli = new CliHarness(root);
+        Path json = root.resolve("stability.json");
+        CliHarness.Result result = cli.run("stability", cli.models.resolve(MODEL).toString(), "--split", "1995-01",
+                "--no-sup-wald", "--json", json.toString(), "--quiet");
+        assertThat(result.code()).as(result.err()).isZero();
+        JsonNode node = JsonMapper.builder().build().readTree(json.toFile());
+        assertThat(node.at("/equality_test/df").asInt()).isEqualTo(3);
+        assertThat(node.at("/equality_test/p_value").asDouble()).isGreaterThan(0.01);
+        assertThat(node.get("variant").asString()).contains("lambda_MKT, lambda_SIZE, lambda_TIDE only");
+        assertThat(node.get("fixed_weight")).isNull();
+
+        // The unknown-break test's limit is that of K = 1 premium on a small synthetic panel.
+        java.util.Random random = new java.util.Random(7);
+        int t = 120;
+        double[][] returns = new double[t][4];
+        double[][] factors = new double[t][1];
+        java.util.List<String> dates = new java.util.ArrayList<>();
+        for (int s = 0; s < t; s++) {
+            factors[s][0] = 0.005 + 0.04 * random.nextGaussian();
+            for (int i = 0; i < 4; i++) {
+                returns[s][i] = (0.6 + 0.3 * i) * factors[s][0] + 0.02 * random.nextGaussian();
+            }
+            dates.add(Integer.toString(s));
+        }
+        org.orthogon.moments.MomentModel model = org.orthogon.moments.ScaledMoments.unscaled(
+                new org.orthogon.moments.BetaPricingErrors(returns, factors, java.util.List.of("A", "B", "C", "D"),
+                        java.util.List.of("F"), org.orthogon.moments.BetaPricingErrors.CrossSection.OLS, false));
+        assertThat(org.orthogon.analysis.Stability.testedParameters(model)).isEqualTo(1);
+        org.orthogon.analysis.Stability.SupWald sup = org.orthogon.analysis.Stability.supWald(model,
+                new double[model.parameterCount()], dates, new org.orthogon.gmm.GmmOptions(
+                        org.orthogon.gmm.EstimationMethod.ONE_STEP,
+                        org.orthogon.longrun.LongRunOptions.heteroskedasticityConsistent()), 0.15, 11L, 2000, i -> { });
+        assertThat(sup.distribution().parameters()).isEqualTo(1);
+        assertThat(sup.statistic()).isPositive();
+    }
+
     private JsonNode fit(CliHarness cli, String crossSection) throws Exception {
         Path model = cli.models.resolve(MODEL);
         if (!crossSection.equals("ols")) {
