@@ -254,7 +254,8 @@ public final class FitReport {
                 + "decimals per period, with its GMM standard error." : "Error: the sample mean of the moment at the "
                 + "estimate (g_T), in decimals per period.");
         if (betaPricing) {
-            table.note("Model-implied mean: beta'lambda with the estimated betas and premia.");
+            table.note("Model-implied mean: beta'lambda with the estimated betas and premia (plus lambda_0 with the "
+                    + "cross-sectional intercept).");
         } else if (means != null) {
             table.note(String.format(Locale.ROOT, "Realised mean: sample mean %s. Model-implied mean: realised "
                     + "minus error / mean SDF, with mean SDF %s.", means.payoff(),
