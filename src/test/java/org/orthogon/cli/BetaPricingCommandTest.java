@@ -54,6 +54,14 @@ class BetaPricingCommandTest {
         assertThat(check.code()).as(check.err()).isZero();
         assertThat(check.out()).contains("K = 60 moments, P = 51 parameters, K - P = 9")
                 .contains("48 time-series parameters").doesNotContain("beta_S3T4_TIDE");
+        // An efficient method is refused alike by check and fit, from the command line and from the file.
+        for (String verb : java.util.List.of("check", "fit")) {
+            CliHarness.Result refused = cli.run(verb, model.toString(), "--method", "two-step");
+            assertThat(refused.code()).isEqualTo(Main.EXIT_INPUT);
+            assertThat(refused.err()).contains("singular by construction").contains("--method one-step");
+        }
+        String fromCheck = cli.run("check", model.toString(), "--method", "continuously-updated").err();
+        assertThat(cli.run("fit", model.toString(), "--method", "continuously-updated").err()).isEqualTo(fromCheck);
         Path out = root.resolve("report");
         CliHarness.Result fit = cli.run("fit", model.toString(), "--out", out.toString());
         assertThat(fit.code()).as(fit.err()).isZero();
