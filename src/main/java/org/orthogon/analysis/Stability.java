@@ -11,6 +11,7 @@ import org.orthogon.gmm.GmmEstimator;
 import org.orthogon.gmm.GmmFit;
 import org.orthogon.gmm.GmmOptions;
 import org.orthogon.gmm.Inference;
+import org.orthogon.moments.FixedSelection;
 import org.orthogon.moments.MomentModel;
 
 /**
@@ -97,8 +98,15 @@ public final class Stability {
      * W = (Rθ)' (R V R')^{-1} (Rθ) ~ χ²((m-1)P) (Andrews and Fair 1988, equation 3.6 for m = 2).
      */
     public static ChiSquareTest equalityTest(List<PeriodFit> periods) {
+        return equalityTest(periods, periods.get(0).fit().parameters().size());
+    }
+
+    /**
+     * The same test over the first {@code p} parameters only (the risk premia of the beta-pricing system,
+     * {@link #testedParameters}): their covariance blocks, (m-1)p degrees of freedom.
+     */
+    public static ChiSquareTest equalityTest(List<PeriodFit> periods, int p) {
         int m = periods.size();
-        int p = periods.get(0).fit().parameters().size();
         int rows = (m - 1) * p;
         DMatrixRMaj difference = new DMatrixRMaj(rows, 1);
         DMatrixRMaj covariance = new DMatrixRMaj(rows, rows);
@@ -122,6 +130,16 @@ public final class Stability {
         DMatrixRMaj weighted = new DMatrixRMaj(rows, 1);
         CommonOps_DDRM.mult(inverse, difference, weighted);
         return ChiSquareTest.of("andrews-fair-wald", CommonOps_DDRM.dot(difference, weighted), rows);
+    }
+
+    /**
+     * The parameters whose stability the tests compare: all of them, or for moments estimated by a fixed
+     * selection its focal ones ({@link FixedSelection#focalParameters()}: the risk premia of the
+     * beta-pricing system, not the N(K + 1) first-pass intercepts and betas, which would swamp a Wald test in
+     * subsamples).
+     */
+    public static int testedParameters(MomentModel model) {
+        return model.fixedSelection().map(FixedSelection::focalParameters).orElse(model.parameterCount());
     }
 
     /**
@@ -150,7 +168,7 @@ public final class Stability {
         }
         Subsamples subsamples = Subsamples.of(model);
         List<Double> statistics = ParallelRunner.map(candidates.size(), threads,
-                i -> waldAtBreak(subsamples, start, options, candidates.get(i), t),
+                i -> waldAtBreak(subsamples, start, options, candidates.get(i), t, testedParameters(model)),
                 i -> progress.accept(candidates.get(i)));
         List<BreakPoint> sequence = new ArrayList<>();
         List<String> failed = new ArrayList<>();
@@ -173,20 +191,21 @@ public final class Stability {
             throw new EstimationException("no candidate break date could be fitted on both sides",
                     List.of(failed.size() + " candidate dates failed"), "use a longer sample or a larger trimming");
         }
-        int parameters = model.parameterCount();
+        int parameters = testedParameters(model);
         return new SupWald(best, bestDate, trimming,
                 SupWaldDistribution.simulate(parameters, trimming, seed, draws, threads), sequence, failed);
     }
 
     /** The Andrews-Fair Wald statistic for a break at {@code index}, or NaN when a side cannot be fitted. */
-    private static double waldAtBreak(Subsamples subsamples, double[] start, GmmOptions options, int index, int t) {
+    private static double waldAtBreak(Subsamples subsamples, double[] start, GmmOptions options, int index, int t,
+            int tested) {
         try {
             GmmFit before = GmmEstimator.estimate(subsamples.rows(0, index), start, options,
                     GmmEstimator.Detail.ESTIMATES);
             GmmFit after = GmmEstimator.estimate(subsamples.rows(index, t), start, options,
                     GmmEstimator.Detail.ESTIMATES);
             return equalityTest(List.of(new PeriodFit("", "", 0, index, before),
-                    new PeriodFit("", "", index, t, after))).statistic();
+                    new PeriodFit("", "", index, t, after)), tested).statistic();
         } catch (EstimationException | IllegalArgumentException e) {
             return Double.NaN;
         }

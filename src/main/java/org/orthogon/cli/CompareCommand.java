@@ -20,6 +20,7 @@ import org.orthogon.report.ComparisonReport;
 import org.orthogon.report.Manifest;
 import org.orthogon.report.ReportFiles;
 import org.orthogon.report.JsonResults;
+import org.orthogon.spec.BetaPricingSpec;
 import org.orthogon.spec.FittedRun;
 import org.orthogon.spec.ModelFile;
 import org.orthogon.spec.RunSpec;
@@ -57,6 +58,13 @@ final class CompareCommand implements Callable<Integer> {
         List<FittedRun> runs = new ArrayList<>();
         for (Path file : modelFiles) {
             RunSpec spec = overrides.apply(ModelFile.read(file));
+            if (spec.model() instanceof BetaPricingSpec) {
+                throw InputException.in(file).line(spec.lineOf("model", "family"))
+                        .problem("compare sets stochastic discount factors side by side at a common weight, but the "
+                                + "beta-pricing family has none (its moments are regressions)",
+                                "fit it alone with `fit`, or compare its factors as family = \"linear-factor\" models "
+                                        + "(form = \"demeaned\" also estimates the risk premia)");
+            }
             FittedRun run = FittedRun.of(spec);
             if (!runs.isEmpty()) {
                 requireSameAssetsAndSample(runs.get(0), run);

@@ -66,6 +66,12 @@ final class FitCommand implements Callable<Integer> {
         int threadCount = threads.count();
         RunSpec spec = overrides.apply(ModelFile.read(modelFile));
         RobustSetOptions robustOptions = robustSets.options(spec.estimation().confidenceLevel());
+        if (robustOptions != null && spec.model() instanceof org.orthogon.spec.BetaPricingSpec) {
+            throw org.orthogon.data.InputException.general().problem("--s-sets cannot be used with the beta-pricing "
+                    + "family of " + modelFile.getFileName() + ": the S and K statistics invert S at every parameter "
+                    + "value, and the S of this system is singular by construction",
+                    "leave out --s-sets; the family's GMM standard errors use S but never its inverse");
+        }
         FittedRun run = FittedRun.of(spec);
         PreparedRun prepared = run.prepared();
         GmmOptions gmmOptions = FittedRun.options(spec, prepared);
@@ -91,7 +97,7 @@ final class FitCommand implements Callable<Integer> {
             JsonResults.addRestrictions(results, restrictions);
         }
         if (sensitivity) {
-            SensitivityReport.addTo(results, grid, prepared.moments().parameterNames());
+            SensitivityReport.addTo(results, grid, FitReport.mainParameters(spec, prepared.moments().parameterNames()));
         }
         var premia = run.riskPremia();
         premia.ifPresent(p -> JsonResults.addRiskPremia(results, p));
@@ -114,7 +120,8 @@ final class FitCommand implements Callable<Integer> {
                 out.print(RobustSetsReport.render(robust));
             }
             if (sensitivity) {
-                out.print("\n" + SensitivityReport.render(grid, prepared.moments().parameterNames()));
+                out.print("\n" + SensitivityReport.render(grid, FitReport.mainParameters(spec,
+                        prepared.moments().parameterNames())));
             }
             if (folder != null) {
                 out.println("\nReport folder: " + CheckReport.display(folder));

@@ -97,10 +97,14 @@ final class StabilityCommand implements Callable<Integer> {
         if (efficient.method() != EstimationMethod.ONE_STEP) {
             variants.add(efficient.withMethod(EstimationMethod.ONE_STEP).withInitialWeight(new InitialWeight.Identity()));
         }
+        // The beta-pricing system's stability is that of its risk premia; its first-pass a and beta are shown only.
+        int tested = Stability.testedParameters(prepared.moments());
         List<StabilityReport.Variant> results = new ArrayList<>();
         for (GmmOptions options : variants) {
-            String label = options == efficient ? "model file's estimator (" + options.method().id() + ")"
-                    : "fixed weight (one-step, identity weight, sandwich covariance)";
+            String label = (options == efficient ? "model file's estimator (" + options.method().id() + ")"
+                    : "fixed weight (one-step, identity weight, sandwich covariance)")
+                    + (tested < prepared.moments().parameterCount() ? "; the tests compare " + String.join(", ",
+                            prepared.moments().parameterNames().subList(0, tested)) + " only" : "");
             List<Stability.PeriodFit> periods = splitIndices.isEmpty() ? List.of()
                     : Stability.periods(prepared.moments(), prepared.startValues(), prepared.dates(), splitIndices, options);
             Stability.SupWald sup = null;
@@ -119,7 +123,7 @@ final class StabilityCommand implements Callable<Integer> {
                 }
             }
             results.add(new StabilityReport.Variant(label, periods,
-                    periods.isEmpty() ? null : Stability.equalityTest(periods), sup, rolling));
+                    periods.isEmpty() ? null : Stability.equalityTest(periods, tested), sup, rolling));
         }
         plan.warnings().forEach(warning -> warnings.add(warning.text()));
         ObjectNode json = StabilityReport.json(spec, prepared.sample(), results);

@@ -11,6 +11,7 @@ import org.orthogon.report.JsonResults;
 import org.orthogon.report.Manifest;
 import org.orthogon.report.ReportFiles;
 import org.orthogon.report.TwoPassReport;
+import org.orthogon.spec.BetaPricingSpec;
 import org.orthogon.spec.LinearFactorSpec;
 import org.orthogon.spec.ModelAssembler;
 import org.orthogon.spec.ModelFile;
@@ -80,11 +81,12 @@ final class TwoPassCommand implements Callable<Integer> {
     }
 
     private static void requireLinearFactor(RunSpec spec) {
-        if (!(spec.model() instanceof LinearFactorSpec)) {
+        if (!(spec.model() instanceof LinearFactorSpec) && !(spec.model() instanceof BetaPricingSpec)) {
             throw InputException.in(spec.modelFile()).line(spec.lineOf("model", "family"))
                     .problem("two-pass regressions need a linear factor model, but this file has family = \""
                             + spec.model().family().id() + "\"",
-                            "use a model file with family = \"linear-factor\" and factor_columns, or run `fit`");
+                            "use a model file with family = \"linear-factor\" (or \"beta-pricing\") and factor_columns, "
+                                    + "or run `fit`");
         }
         if (!spec.model().instrumentColumns().isEmpty()) {
             throw InputException.in(spec.modelFile()).line(spec.lineOf("model", "instrument_columns"))

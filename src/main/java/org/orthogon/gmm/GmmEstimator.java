@@ -30,6 +30,9 @@ import org.orthogon.moments.MomentModel;
  * one is reported). When K = P the estimate solves g_T(θ) = 0 whatever W, and the covariance is
  * D^{-1} S D^{-1}' / T, computed without forming D'WD.
  *
+ * <p>Moments that carry a {@link MomentModel#fixedSelection()} (the beta-pricing system, whose S is
+ * singular) are estimated by {@link FixedSelectionEstimator} instead: θ̂ solves a_T g_T = 0.
+ *
  * <p>Never a clean estimate: a solver that did not converge or a singular D'WD raises
  * {@link EstimationException}; iterated GMM at its cap and parameters on a bound leave a warning that
  * starts with "NOT A CLEAN ESTIMATE" and {@link GmmDiagnostics#clean()} false.
@@ -86,6 +89,9 @@ public final class GmmEstimator {
         if (start.length != p) {
             throw new IllegalArgumentException("start has " + start.length + " values, the model has parameters "
                     + model.parameterNames());
+        }
+        if (model.fixedSelection().isPresent()) {
+            return FixedSelectionEstimator.estimate(model, model.fixedSelection().get(), options);
         }
         if (k < p) {
             throw new EstimationException("the model has " + p + " parameters but only " + k + " moments",

@@ -25,7 +25,8 @@ import org.orthogon.longrun.LongRunEstimate;
  * @param warnings          everything a reader must see beside the numbers; those that disqualify the
  *                          estimate start with {@link GmmEstimator#NOT_CLEAN}
  * @param weight            the K x K weight of the last step (S^{-1} at the estimate for the
- *                          continuously-updated estimator)
+ *                          continuously-updated estimator; a'a for a fixed selection a, whose T g'a'a g is
+ *                          zero at the estimate)
  * @param diagnostics       condition numbers, sizes, iterations, convergence, bounds hit
  * @param hjDistance        the Hansen-Jagannathan distance, or null when it could not be computed
  *                          (the reason is in the warnings)

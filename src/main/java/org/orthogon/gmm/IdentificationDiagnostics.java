@@ -76,7 +76,10 @@ public final class IdentificationDiagnostics {
         List<String> warnings = new ArrayList<>(fit.warnings());
         List<String> problems = new ArrayList<>();
         double[] direction = new double[theta.length];
-        double sigma = smallestScaledSingularValue(model.meanJacobian(theta), fit.longRun().covariance(), direction);
+        // A fixed selection (the beta-pricing system) has a singular S by construction, so Ŝ^{-1/2}D does not
+        // exist; its identification is the invertibility of aD, which its estimator checks and reports.
+        double sigma = model.fixedSelection().isPresent() ? Double.NaN
+                : smallestScaledSingularValue(model.meanJacobian(theta), fit.longRun().covariance(), direction);
         if (sigma < UNIDENTIFIED) {
             String problem = String.format(Locale.ROOT, "the parameters are close to unidentified: the smallest "
                     + "singular value of the scaled Jacobian is %.2g (%s); the standard errors and tests do not "

@@ -53,6 +53,53 @@ public final class Inference {
         return Matrices.symmetrize(covariance);
     }
 
+    /** (I - D H) S (I - D H)' / T for the P x K influence H of g_T on θ̂. */
+    private static DMatrixRMaj projectedCovariance(DMatrixRMaj jacobian, DMatrixRMaj influence, DMatrixRMaj longRun,
+            int observations) {
+        int k = jacobian.numRows;
+        DMatrixRMaj annihilator = CommonOps_DDRM.identity(k);
+        CommonOps_DDRM.multAdd(-1.0, jacobian, influence, annihilator);
+        DMatrixRMaj temp = new DMatrixRMaj(k, k);
+        CommonOps_DDRM.mult(annihilator, longRun, temp);
+        DMatrixRMaj covariance = new DMatrixRMaj(k, k);
+        CommonOps_DDRM.multTransB(temp, annihilator, covariance);
+        CommonOps_DDRM.divide(covariance, observations);
+        return Matrices.symmetrize(covariance);
+    }
+
+    /**
+     * Covariance of an estimate that solves a g_T(θ̂) = 0 for a fixed P x K selection a (Hansen 1982,
+     * Theorem 3.1; Cochrane 2005, "Asset Pricing", revised edition, section 11.2):
+     * V = (aD)^{-1} a S a' (aD)^{-1}' / T. With a = D'W it is {@link #sandwichCovariance}; S is never
+     * inverted, so a singular S is fine.
+     */
+    public static DMatrixRMaj selectionCovariance(DMatrixRMaj jacobian, DMatrixRMaj selection, DMatrixRMaj longRun,
+            int observations) {
+        DMatrixRMaj influence = selectionInfluence(jacobian, selection);
+        DMatrixRMaj transposed = new DMatrixRMaj(influence.numCols, influence.numRows);
+        CommonOps_DDRM.transpose(influence, transposed);
+        DMatrixRMaj covariance = Matrices.quadraticForm(transposed, longRun);
+        CommonOps_DDRM.divide(covariance, observations);
+        return Matrices.symmetrize(covariance);
+    }
+
+    /**
+     * Covariance of the sample moments at an estimate that solves a g_T(θ̂) = 0 (Cochrane 2005, section
+     * 11.2): Var(g_T) = (1/T) (I - D(aD)^{-1}a) S (I - D(aD)^{-1}a)'. With a = D'W it is
+     * {@link #pricingErrorCovariance}; its rank is K - P.
+     */
+    public static DMatrixRMaj selectionErrorCovariance(DMatrixRMaj jacobian, DMatrixRMaj selection,
+            DMatrixRMaj longRun, int observations) {
+        return projectedCovariance(jacobian, selectionInfluence(jacobian, selection), longRun, observations);
+    }
+
+    /** (aD)^{-1} a, P x K: how θ̂ moves with g_T. */
+    private static DMatrixRMaj selectionInfluence(DMatrixRMaj jacobian, DMatrixRMaj selection) {
+        DMatrixRMaj ad = new DMatrixRMaj(selection.numRows, jacobian.numCols);
+        CommonOps_DDRM.mult(selection, jacobian, ad);
+        return Matrices.solveSquare(ad, selection, "aD, the selected moments' Jacobian");
+    }
+
     /**
      * Hansen's (1982) J statistic T g_T' W g_T; chi-square with K - P degrees of freedom when
      * W is the efficient weight.

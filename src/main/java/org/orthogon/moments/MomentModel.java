@@ -104,6 +104,14 @@ public interface MomentModel {
         return parameterNames().size();
     }
 
+    /**
+     * The selection a_T when the model is estimated by a_T g_T(θ̂) = 0 ({@link FixedSelection}: the
+     * beta-pricing system, whose S is singular) instead of by minimising T g' W g; empty otherwise.
+     */
+    default java.util.Optional<FixedSelection> fixedSelection() {
+        return java.util.Optional.empty();
+    }
+
     // Repeated fits (subsample windows, bootstrap draws): evaluation without allocation, per-row Jacobians.
 
     /**

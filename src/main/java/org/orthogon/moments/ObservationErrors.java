@@ -35,7 +35,11 @@ public interface ObservationErrors {
      */
     void payoffs(double[] out);
 
-    /** Fills {@code out} (length T) with the stochastic discount factor m_t(θ). */
+    /**
+     * Fills {@code out} (length T) with the stochastic discount factor m_t(θ); errors that come from no
+     * SDF (the beta-pricing system) throw {@link UnsupportedOperationException}, as they do for
+     * {@link #payoffs}, and say so with an empty {@link #distanceErrors()}.
+     */
     void discountFactor(double[] theta, double[] out);
 
     /**
@@ -67,5 +71,13 @@ public interface ObservationErrors {
      */
     default java.util.Optional<ObservationErrors> distanceErrors() {
         return java.util.Optional.of(this);
+    }
+
+    /**
+     * The selection a_T when these errors are estimated by setting fixed combinations of their means to
+     * zero ({@link FixedSelection}) rather than by minimising a quadratic form; empty for every SDF family.
+     */
+    default java.util.Optional<FixedSelection> fixedSelection() {
+        return java.util.Optional.empty();
     }
 }

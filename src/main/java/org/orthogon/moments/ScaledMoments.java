@@ -62,9 +62,17 @@ public final class ScaledMoments implements MomentModel {
         return new ScaledMoments(errors, null, List.of());
     }
 
-    /** Moments f_t(θ) = e_t(θ) ⊗ z_{t-1}; row t of {@code laggedInstruments} holds z_{t-1}. */
+    /**
+     * Moments f_t(θ) = e_t(θ) ⊗ z_{t-1}; row t of {@code laggedInstruments} holds z_{t-1}.
+     *
+     * @throws IllegalArgumentException for errors estimated by a fixed selection, whose a_T is written
+     *                                  for the unscaled moments
+     */
     public static ScaledMoments scaled(ObservationErrors errors, double[][] laggedInstruments,
             List<String> instrumentNames) {
+        if (errors.fixedSelection().isPresent()) {
+            throw new IllegalArgumentException("errors estimated by a fixed selection cannot be scaled by instruments");
+        }
         return new ScaledMoments(errors, Objects.requireNonNull(laggedInstruments), List.copyOf(instrumentNames));
     }
 
@@ -206,6 +214,11 @@ public final class ScaledMoments implements MomentModel {
     public java.util.Optional<MomentModel> distanceMoments() {
         return errors.distanceErrors().map(priced -> priced == errors ? this : instruments == null
                 ? unscaled(priced) : scaled(priced, instruments, instrumentNames));
+    }
+
+    @Override
+    public java.util.Optional<FixedSelection> fixedSelection() {
+        return errors.fixedSelection();
     }
 
     @Override

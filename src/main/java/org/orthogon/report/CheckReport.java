@@ -27,8 +27,15 @@ public final class CheckReport {
         StringBuilder out = new StringBuilder();
         out.append("Checked ").append(display(spec.modelFile())).append(": the model file and its data are usable\n");
         out.append("  title       ").append(spec.title()).append('\n');
-        out.append("  family      ").append(spec.model().family().id()).append(", parameters ")
-                .append(String.join(", ", prepared.moments().parameterNames())).append('\n');
+        List<String> names = prepared.moments().parameterNames();
+        String parameters = String.join(", ", names);
+        if (spec.model() instanceof org.orthogon.spec.BetaPricingSpec beta) {
+            int q = beta.crossSectionCoefficients();
+            parameters = String.join(", ", names.subList(0, q)) + ", and a and the betas of the "
+                    + prepared.assets().size() + " assets (" + (names.size() - q) + " time-series parameters)";
+        }
+        out.append("  family      ").append(spec.model().family().id()).append(", parameters ").append(parameters)
+                .append('\n');
         out.append(String.format(Locale.ROOT, "  sample      %s to %s, T = %d %s observations%n", prepared.sample().start(),
                 prepared.sample().end(), prepared.sample().observations(), prepared.sample().frequency()));
         out.append(String.format(Locale.ROOT, "  sizes       N = %s, K = %s, P = %s, K - P = %s%n",

@@ -36,10 +36,12 @@ public final class ConsoleReport {
      */
     public static String render(RunSpec spec, SampleInfo sample, GmmFit fit, List<String> dataNotes,
             List<FittedRun.RestrictionTest> restrictions, double[] windmeijer) {
+        java.util.Optional<BetaPricingView> beta = BetaPricingView.of(spec, fit);
         StringBuilder out = new StringBuilder();
         out.append(spec.title()).append('\n');
-        out.append(String.format(Locale.ROOT, "  %s SDF, %s GMM, %s %s to %s (T = %d), %s, %s%n",
-                spec.model().family().id(), fit.method().id(), sample.frequency(), sample.start(), sample.end(),
+        out.append(String.format(Locale.ROOT, "  %s, %s GMM, %s %s to %s (T = %d), %s, %s%n",
+                beta.map(BetaPricingView::describe).orElse(spec.model().family().id() + " SDF"), fit.method().id(),
+                sample.frequency(), sample.start(), sample.end(),
                 sample.observations(), count(fit.momentCount(), "moment"), count(fit.parameters().size(), "parameter")));
         out.append("  long-run covariance: ").append(describeLongRun(fit)).append("\n\n");
 
@@ -52,7 +54,8 @@ public final class ConsoleReport {
         }
         TextTable parameters = new TextTable(header);
         List<ConfidenceInterval> intervals = fit.confidenceIntervals();
-        for (int i = 0; i < fit.parameters().size(); i++) {
+        int shown = beta.map(view -> view.headline().size()).orElse(fit.parameters().size());
+        for (int i = 0; i < shown; i++) {
             ParameterEstimate p = fit.parameters().get(i);
             List<String> row = new java.util.ArrayList<>(List.of(p.name(), number(p.estimate()), number(p.stdError()),
                     fixed(p.tStat(), 2), fixed(p.pValue(), 4), number(intervals.get(i).lower()),
@@ -68,9 +71,13 @@ public final class ConsoleReport {
                     + "t-stat, p-value and interval use the usual s.e.\n");
         }
         out.append('\n');
+        beta.ifPresent(view -> out.append("  ").append(view.timeSeriesNote("in the table below")).append("\n\n")
+                .append(view.console()).append('\n'));
 
         ChiSquareTest over = fit.overidentification();
         out.append(over.kind().equals("hansen-j") ? "Overidentifying restrictions: Hansen J test\n"
+                : beta.isPresent() ? "Overidentifying restrictions: joint test of the pricing errors, "
+                        + "alpha' Var(alpha)^+ alpha (GMM covariance, fixed selection)\n"
                 : "Overidentifying restrictions: joint test of the pricing errors (one-step weight)\n");
         out.append(String.format(Locale.ROOT, "  statistic %s, %d degrees of freedom, p-value %s%n",
                 fixed(over.statistic(), 3), over.df(), fixed(over.pValue(), 4)));
@@ -78,9 +85,11 @@ public final class ConsoleReport {
                 + "(%s)%n", number(hj.value()), fixed(hj.pValue(), 4), hj.pValueSource())));
         out.append('\n');
 
-        out.append("Pricing errors (sample mean of each moment at the estimate)\n");
-        TextTable errors = new TextTable(List.of("moment", "error", "std. error", "t-stat"));
-        for (PricingError e : fit.pricingErrors()) {
+        out.append(beta.isPresent() ? "Pricing errors alpha = mean excess return - beta'lambda (GMM standard errors)\n"
+                : "Pricing errors (sample mean of each moment at the estimate)\n");
+        TextTable errors = new TextTable(List.of(beta.isPresent() ? "asset" : "moment", "error", "std. error",
+                "t-stat"));
+        for (PricingError e : beta.map(BetaPricingView::pricingErrors).orElse(fit.pricingErrors())) {
             errors.row(List.of(e.asset(), number(e.error()), number(e.stdError()), fixed(e.tStat(), 2)));
         }
         out.append(errors.render("  "));
@@ -90,8 +99,9 @@ public final class ConsoleReport {
 
         out.append(renderRestrictions(restrictions));
         GmmDiagnostics d = fit.diagnostics();
-        out.append(String.format(Locale.ROOT, "%ndiagnostics: condition number of S %s, of D'WD %s; smallest singular "
+        out.append(String.format(Locale.ROOT, "%ndiagnostics: condition number of S %s%s, of %s %s; smallest singular "
                 + "value of the scaled D %s; %d solver iterations, %d weight updates, %s%n", number(d.conditionS()),
+                beta.isPresent() ? " (singular by construction, never inverted)" : "", beta.isPresent() ? "aD" : "D'WD",
                 number(d.conditionDWD()), fixed(d.smallestSingularValue(), 3), d.solverIterations(), d.weightUpdates(),
                 d.clean() ? "converged" : "NOT CLEAN"));
         if (!fit.warnings().isEmpty() || !dataNotes.isEmpty()) {

@@ -55,23 +55,31 @@ public final class FitReport {
             List<FittedRun.RestrictionTest> restrictions, List<SensitivityGrid.SensitivityRow> sensitivity,
             Extras extras) {
         var sample = prepared.sample();
+        java.util.Optional<BetaPricingView> beta = BetaPricingView.of(spec, fit);
         Report.Builder report = Report.builder(spec.title()).key(spec.modelFile().getFileName().toString()
                 .replaceFirst("\\.toml$", ""))
-                .subtitle(String.format(Locale.ROOT, "%s SDF, %s GMM; %s sample %s to %s, T = %d",
-                        spec.model().family().id(), fit.method().id(), sample.frequency(), sample.start(),
+                .subtitle(String.format(Locale.ROOT, "%s, %s GMM; %s sample %s to %s, T = %d",
+                        beta.map(BetaPricingView::describe).orElse(spec.model().family().id() + " SDF"),
+                        fit.method().id(), sample.frequency(), sample.start(),
                         sample.end(), sample.observations()))
                 .subtitle("N = " + ConsoleReport.count(prepared.assets().size(), "test asset") + ", K = "
                         + ConsoleReport.count(fit.momentCount(), "moment") + ", P = "
                         + ConsoleReport.count(fit.parameters().size(), "parameter"))
                 .subtitle("Long-run covariance: " + ConsoleReport.describeLongRun(fit));
         report.section("Parameters").table(parameters(fit, extras.windmeijer() == null ? null
-                : extras.windmeijer().stdErrors()));
+                : extras.windmeijer().stdErrors(), beta));
+        beta.ifPresent(view -> report.table(view.table()));
         if (premia != null) {
             report.table(riskPremia(premia));
         }
         report.section("Overidentifying restrictions").table(overidentification(fit));
-        MeanPayoffs means = realisedAndImplied(spec, prepared, fit);
-        report.section("Pricing errors").table(pricingErrors(fit, means)).chart(errorChart(fit));
+        MeanPayoffs means = beta.map(view -> new MeanPayoffs(new CrossSectionFit(prepared.assets(), view.realised(),
+                view.predicted(), view.pricingErrors().stream().mapToDouble(PricingError::error).toArray(), Double.NaN,
+                Double.NaN, Double.NaN, Double.NaN), "excess return")).orElseGet(() -> realisedAndImplied(spec, prepared,
+                        fit));
+        List<PricingError> rows = beta.map(BetaPricingView::pricingErrors).orElse(fit.pricingErrors());
+        report.section("Pricing errors").table(pricingErrors(rows, fit.pricingErrorsJoint(), means, beta.isPresent()))
+                .chart(errorChart(rows));
         if (means != null) {
             report.chart(scatter(prepared.assets(), means));
         }
@@ -80,7 +88,7 @@ public final class FitReport {
         }
         if (!sensitivity.isEmpty()) {
             report.section("Sensitivity to the long-run covariance")
-                    .table(SensitivityReport.table(sensitivity, fit.parameterNames()));
+                    .table(SensitivityReport.table(sensitivity, mainParameters(spec, fit.parameterNames())));
         }
         if (extras.robust() != null) {
             RobustSetsReport.addSection(report, extras.robust());
@@ -93,6 +101,15 @@ public final class FitReport {
         prepared.warnings().forEach(warning -> warnings.add(warning.text()));
         warnings.addAll(fit.warnings());
         return report.warnings(warnings).build();
+    }
+
+    /**
+     * The parameters a report lists in its main tables: all of them, except for the beta-pricing system,
+     * whose λ (and λ_0) come first and whose a and β have a table of their own.
+     */
+    public static List<String> mainParameters(RunSpec spec, List<String> names) {
+        return spec.model() instanceof org.orthogon.spec.BetaPricingSpec beta
+                ? names.subList(0, beta.crossSectionCoefficients()) : names;
     }
 
     /** The Wald tests of the model file's and the command line's linear restrictions. */
@@ -130,6 +147,11 @@ public final class FitReport {
 
     /** The parameter table, with Windmeijer's corrected standard errors in a column when given. */
     public static Table parameters(GmmFit fit, double[] windmeijer) {
+        return parameters(fit, windmeijer, java.util.Optional.empty());
+    }
+
+    /** The same; for the beta-pricing system only λ, with a note pointing to the time-series table. */
+    private static Table parameters(GmmFit fit, double[] windmeijer, java.util.Optional<BetaPricingView> beta) {
         String level = String.format(Locale.ROOT, "%.0f%%", 100 * fit.confidenceLevel());
         List<String> header = new ArrayList<>(List.of("parameter", "estimate", "std. error", "t-stat", "p-value",
                 level + " low", level + " high"));
@@ -139,7 +161,8 @@ public final class FitReport {
         Table.Builder table = Table.builder("parameters", "Parameter estimates", header)
                 .errorUnder("estimate", "std. error");
         List<ConfidenceInterval> intervals = fit.confidenceIntervals();
-        for (int i = 0; i < fit.parameters().size(); i++) {
+        int shown = beta.map(view -> view.headline().size()).orElse(fit.parameters().size());
+        for (int i = 0; i < shown; i++) {
             ParameterEstimate p = fit.parameters().get(i);
             List<Cell> row = new ArrayList<>(List.of(Cell.parameter(p.name()), Cell.number(p.estimate()),
                     Cell.number(p.stdError()), Cell.fixed(p.tStat(), 2), Cell.fixed(p.pValue(), 4),
@@ -154,6 +177,7 @@ public final class FitReport {
                     + "Journal of Econometrics 126); t-statistics, p-values and intervals use the usual standard errors.");
         }
         ChiSquareTest over = fit.overidentification();
+        beta.ifPresent(view -> table.note(view.timeSeriesNote("in the table time-series")));
         return table.note("Standard errors in parentheses; p-values two-sided against zero, normal approximation.")
                 .note(String.format(Locale.ROOT, "%s: statistic %s, %d degrees of freedom, p-value %s.", testName(over),
                         ConsoleReport.fixed(over.statistic(), 3), over.df(), ConsoleReport.fixed(over.pValue(), 4)))
@@ -203,13 +227,19 @@ public final class FitReport {
 
     /** One row per moment; with realised and model-implied means when {@code means} is not null. */
     static Table pricingErrors(GmmFit fit, MeanPayoffs means) {
+        return pricingErrors(fit.pricingErrors(), fit.pricingErrorsJoint(), means, false);
+    }
+
+    /** The rows given; {@code betaPricing} says the implied means are β'λ rather than SDF prices. */
+    private static Table pricingErrors(List<PricingError> errors, ChiSquareTest joint, MeanPayoffs means,
+            boolean betaPricing) {
         List<String> header = new ArrayList<>(List.of("moment", "error", "std. error", "t-stat"));
         if (means != null) {
             header.addAll(List.of("realised mean", "model-implied mean"));
         }
         Table.Builder table = Table.builder("pricing-errors", "Pricing errors at the estimate", header);
-        for (int i = 0; i < fit.pricingErrors().size(); i++) {
-            PricingError e = fit.pricingErrors().get(i);
+        for (int i = 0; i < errors.size(); i++) {
+            PricingError e = errors.get(i);
             boolean priced = means != null && i < means.realised().length;
             // Fixed decimals: the column compares returns of one scale, which exponents would hide.
             List<Cell> row = new ArrayList<>(List.of(Cell.text(e.asset()), Cell.fixed(e.error(), 6),
@@ -220,9 +250,13 @@ public final class FitReport {
             }
             table.row(row);
         }
-        ChiSquareTest joint = fit.pricingErrorsJoint();
-        table.note("Error: the sample mean of the moment at the estimate (g_T), in decimals per period.");
-        if (means != null) {
+        table.note(betaPricing ? "Error: alpha = mean excess return - beta'lambda (the cross-sectional residual), in "
+                + "decimals per period, with its GMM standard error." : "Error: the sample mean of the moment at the "
+                + "estimate (g_T), in decimals per period.");
+        if (betaPricing) {
+            table.note("Model-implied mean: beta'lambda with the estimated betas and premia (plus lambda_0 with the "
+                    + "cross-sectional intercept).");
+        } else if (means != null) {
             table.note(String.format(Locale.ROOT, "Realised mean: sample mean %s. Model-implied mean: realised "
                     + "minus error / mean SDF, with mean SDF %s.", means.payoff(),
                     ConsoleReport.fixed(means.fit().meanSdf(), 6)));
@@ -232,9 +266,9 @@ public final class FitReport {
                 ConsoleReport.fixed(joint.pValue(), 4))).build();
     }
 
-    private static Chart errorChart(GmmFit fit) {
+    private static Chart errorChart(List<PricingError> errors) {
         return new Chart.ErrorBars("pricing-errors", "Pricing errors with 95% bands (±1.96 standard errors)",
-                "moment", "pricing error", fit.pricingErrors().stream()
+                "moment", "pricing error", errors.stream()
                         .map(e -> new Chart.Estimate(e.asset(), e.error(), e.stdError())).toList());
     }
 

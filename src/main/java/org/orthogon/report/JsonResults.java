@@ -53,23 +53,22 @@ public final class JsonResults {
         longRun.put("small_sample_adjusted", spec.estimation().smallSample());
         number(longRun, "small_sample_factor", LongRunCovariance.smallSampleFactor(fit.observations(),
                 fit.parameters().size()));
-        ArrayNode parameters = root.putArray("parameters");
+        java.util.Optional<BetaPricingView> beta = BetaPricingView.of(spec, fit);
         List<ConfidenceInterval> intervals = fit.confidenceIntervals();
-        for (int i = 0; i < fit.parameters().size(); i++) {
-            ParameterEstimate p = fit.parameters().get(i);
-            ObjectNode node = parameters.addObject();
-            node.put("name", p.name());
-            number(node, "estimate", p.estimate());
-            number(node, "std_error", p.stdError());
-            number(node, "t_stat", p.tStat());
-            number(node, "p_value", p.pValue());
-            number(node, "conf_low", intervals.get(i).lower());
-            number(node, "conf_high", intervals.get(i).upper());
+        int headline = beta.map(view -> view.headline().size()).orElse(fit.parameters().size());
+        parameters(root.putArray("parameters"), fit, intervals, 0, headline);
+        if (beta.isPresent()) {
+            // a and β of every asset: many rows, so they stand apart from the cross-sectional coefficients.
+            parameters(root.putArray("time_series_parameters"), fit, intervals, headline, fit.parameters().size());
+            ObjectNode system = root.putObject("beta_pricing");
+            system.put("cross_section", beta.get().crossSection());
+            system.put("intercept", beta.get().intercept());
+            system.put("time_series_moments", beta.get().timeSeriesMoments());
         }
         number(root, "confidence_level", fit.confidenceLevel());
         test(root.putObject("overidentification"), fit.overidentification());
         ArrayNode errors = root.putArray("pricing_errors");
-        for (PricingError e : fit.pricingErrors()) {
+        for (PricingError e : beta.map(BetaPricingView::pricingErrors).orElse(fit.pricingErrors())) {
             ObjectNode node = errors.addObject();
             node.put("asset", e.asset());
             number(node, "error", e.error());
@@ -105,6 +104,20 @@ public final class JsonResults {
         fit.warnings().forEach(warnings::add);
         root.put("caution", Caution.TEXT);
         return root;
+    }
+
+    private static void parameters(ArrayNode array, GmmFit fit, List<ConfidenceInterval> intervals, int from, int to) {
+        for (int i = from; i < to; i++) {
+            ParameterEstimate p = fit.parameters().get(i);
+            ObjectNode node = array.addObject();
+            node.put("name", p.name());
+            number(node, "estimate", p.estimate());
+            number(node, "std_error", p.stdError());
+            number(node, "t_stat", p.tStat());
+            number(node, "p_value", p.pValue());
+            number(node, "conf_low", intervals.get(i).lower());
+            number(node, "conf_high", intervals.get(i).upper());
+        }
     }
 
     /** Adds the Wald tests of the model file's restrictions as the field "restrictions". */

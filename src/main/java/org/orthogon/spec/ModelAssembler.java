@@ -94,14 +94,20 @@ public final class ModelAssembler {
                 observations, dates.get(0).frequency().id());
         List<String> labels = dates.subList(aligned.first(), aligned.last() + 1).stream().map(Period::label).toList();
         return new PreparedRun(moments, start, sample, data.notes(), data.inputs(),
-                errors.assetNames().subList(0, errors.pricedAssets()), labels, warnings(k, p, observations, spec.estimation().longRunOptions()), bounds,
-                family.factorSample());
+                errors.assetNames().subList(0, errors.pricedAssets()), labels,
+                warnings(k, p, observations, spec.estimation().longRunOptions(), moments.fixedSelection().isPresent()),
+                bounds, family.factorSample());
     }
 
-    /** Warnings before any estimation: the many-moments rule of {@link ManyMoments} with the file's S, and K = P. */
-    private static List<Warning> warnings(int k, int p, int t, LongRunOptions longRun) {
+    /**
+     * Warnings before any estimation: the many-moments rule of {@link ManyMoments} with the file's S (not for a
+     * fixed selection, the beta-pricing system, which inverts no K x K weight), and K = P.
+     */
+    private static List<Warning> warnings(int k, int p, int t, LongRunOptions longRun, boolean fixedSelection) {
         List<Warning> warnings = new ArrayList<>();
-        ManyMoments.warning(k, t, longRun).ifPresent(w -> warnings.add(new Warning("many-moments", w)));
+        if (!fixedSelection) {
+            ManyMoments.warning(k, t, longRun).ifPresent(w -> warnings.add(new Warning("many-moments", w)));
+        }
         if (k == p) {
             warnings.add(new Warning("exactly-identified", "the model is exactly identified (K = P): there will be "
                     + "no overidentifying restrictions to test"));

@@ -273,8 +273,18 @@ public final class ModelFile {
 
     private EstimationSpec parseEstimation(JsonNode estimation, ModelSpec model) {
         JsonNode node = estimation == null ? TomlMapper.builder().build().createObjectNode() : estimation;
+        for (String key : node.propertyNames()) {
+            model.estimationKeyRefusal(key).ifPresent(refusal -> {
+                throw error("estimation", key, key + " cannot be used with the " + model.family().id() + " family: "
+                        + refusal.problem(), refusal.fix());
+            });
+        }
         String methodId = choice("estimation", node, "method",
-                Arrays.stream(EstimationMethod.values()).map(EstimationMethod::id).toList(), "two-step");
+                Arrays.stream(EstimationMethod.values()).map(EstimationMethod::id).toList(), model.defaultMethod().id());
+        model.refusal(EstimationMethod.fromId(methodId)).ifPresent(refusal -> {
+            throw error("estimation", "method", "method = \"" + methodId + "\" cannot be used with the "
+                    + model.family().id() + " family: " + refusal.problem(), refusal.fix());
+        });
         String weight = choice("estimation", node, "initial_weight", INITIAL_WEIGHTS, "identity");
         String kernelId = choice("estimation", node, "kernel",
                 Arrays.stream(Kernel.values()).map(Kernel::id).toList(), defaultKernel(model, node));
@@ -489,7 +499,7 @@ public final class ModelFile {
         return value;
     }
 
-    private boolean bool(String section, JsonNode node, String key, boolean fallback) {
+    boolean bool(String section, JsonNode node, String key, boolean fallback) {
         if (!node.has(key)) {
             return fallback;
         }

@@ -46,6 +46,11 @@ public final class ModelSection {
         return file.choice(name, node, key, allowed, fallback);
     }
 
+    /** true or false, {@code fallback} when absent; refuses any other value. */
+    public boolean bool(String key, boolean fallback) {
+        return file.bool(name, node, key, fallback);
+    }
+
     /** A refusal about {@code key}, located at its line, or at the section header when it is not written. */
     public InputException error(String key, String problem, String fix) {
         return file.error(name, key, problem, fix);

@@ -2,6 +2,8 @@ package org.orthogon.spec;
 
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
+import org.orthogon.gmm.EstimationMethod;
 import org.orthogon.moments.Payoff;
 
 /**
@@ -14,11 +16,16 @@ import org.orthogon.moments.Payoff;
  * {@link org.orthogon.moments.SdfErrors}), a record here with its {@link Family} descriptor, tests, and
  * one registration: the record in the {@code permits} clause and its descriptor in {@link #FAMILIES}.
  */
-public sealed interface ModelSpec permits PowerUtilitySpec, RecursiveUtilitySpec, LinearFactorSpec, ExpressionSpec {
+public sealed interface ModelSpec permits PowerUtilitySpec, RecursiveUtilitySpec, LinearFactorSpec, ExpressionSpec,
+        BetaPricingSpec {
 
     /** Every family the model file can name, in the order help texts list them. */
     List<Family> FAMILIES = List.of(PowerUtilitySpec.FAMILY, RecursiveUtilitySpec.FAMILY, LinearFactorSpec.FAMILY,
-            ExpressionSpec.FAMILY);
+            ExpressionSpec.FAMILY, BetaPricingSpec.FAMILY);
+
+    /** Why a family cannot take an estimation choice: the problem, and the fix a user can make. */
+    record Refusal(String problem, String fix) {
+    }
 
     /** This family's descriptor. */
     Family family();
@@ -43,6 +50,24 @@ public sealed interface ModelSpec permits PowerUtilitySpec, RecursiveUtilitySpec
      */
     default Map<String, double[]> defaultBounds() {
         return Map.of();
+    }
+
+    /** The estimation method when neither the model file nor the command line names one. */
+    default EstimationMethod defaultMethod() {
+        return EstimationMethod.TWO_STEP;
+    }
+
+    /**
+     * Why this family cannot be estimated by {@code method}, or empty when it can (every method, for the
+     * SDF families). The model file and the command line both ask, so `check` refuses what `fit` would.
+     */
+    default Optional<Refusal> refusal(EstimationMethod method) {
+        return Optional.empty();
+    }
+
+    /** Why this family cannot use the [estimation] key written in the model file, or empty when it can. */
+    default Optional<Refusal> estimationKeyRefusal(String key) {
+        return Optional.empty();
     }
 
     /**

@@ -141,6 +141,13 @@ public record RunSpec(Path modelFile, String title, DataSpec data, ModelSpec mod
     public RunSpec withCommandLine(EstimationMethod method, Kernel kernel, BandwidthRule bandwidth,
             String bandwidthOption, Boolean prewhiten, Boolean centered, List<String> restrictions) {
         EstimationSpec e = estimation;
+        if (method != null) {
+            model.refusal(method).ifPresent(refusal -> {
+                throw InputException.general().problem("--method " + method.id() + " cannot be used with the "
+                        + model.family().id() + " family of " + modelFile.getFileName() + ": " + refusal.problem(),
+                        refusal.fix());
+            });
+        }
         Kernel newKernel = kernel == null ? e.kernel() : kernel;
         String kernelSource = kernel != null ? "--kernel " + kernel.id()
                 : "kernel \"" + e.kernel().id() + "\"" + (writes("estimation", "kernel")

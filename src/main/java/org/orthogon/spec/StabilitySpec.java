@@ -170,8 +170,9 @@ public record StabilitySpec(List<String> splits, double trimming, Optional<Integ
             }
             windowCount = (t - length) / step + 1;
         }
-        return new Plan(indices, candidates, windowCount, sizeWarnings(k, t, indices, supWald,
-                spec.estimation().longRunOptions()));
+        // A fixed selection (the beta-pricing system) inverts no K x K weight: the many-moments rule is not its.
+        return new Plan(indices, candidates, windowCount, prepared.moments().fixedSelection().isPresent() ? List.of()
+                : sizeWarnings(k, t, indices, supWald, spec.estimation().longRunOptions()));
     }
 
     private List<Integer> splitIndices(RunSpec spec, PreparedRun prepared) {

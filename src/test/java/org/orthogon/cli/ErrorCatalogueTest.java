@@ -32,6 +32,7 @@ class ErrorCatalogueTest {
     private static final String PORTFOLIOS = "lumen-portfolios-monthly.csv";
     private static final String CONSUMPTION = "lumen-consumption-quarterly.csv";
     private static final String EXPRESSION = "lumen-expression-power.toml";
+    private static final String BETA = "lumen-beta-pricing.toml";
 
     @TempDir
     Path root;
@@ -290,6 +291,29 @@ class ErrorCatalogueTest {
                 "assets = [\"S1T1\", \"S1T2\", \"S1T3\", \"S1T4\"]\n\n[model]"), THREE, 17, "K + 2")));
         cases.add(onVerb("two-pass", refused("two-pass-short-sample", THREE, replaceInModel(THREE, "[model]",
                 "start = \"2023-11\"\n\n[model]"), THREE, 13, "T > N + K")));
+        // The beta-pricing system (S singular by construction; closed form; no SDF)
+        cases.add(refused("beta-pricing-efficient-method", BETA, replaceInModel(BETA, "method = \"one-step\"",
+                "method = \"two-step\""), BETA, 25, "singular by construction", "method = \"one-step\""));
+        cases.add(withArgs(refused("beta-pricing-efficient-method-option", BETA, cli -> { }, "--method iterated", 0,
+                "singular by construction", "--method one-step"), "--method", "iterated"));
+        cases.add(refused("beta-pricing-initial-weight", BETA, replaceInModel(BETA, "kernel = \"bartlett\"",
+                "initial_weight = \"second-moment\"\nkernel = \"bartlett\""), BETA, 26, "cross_section"));
+        cases.add(refused("beta-pricing-hj-settings", BETA, replaceInModel(BETA, "kernel = \"bartlett\"",
+                "hj_draws = 5000\nkernel = \"bartlett\""), BETA, 26, "Hansen-Jagannathan"));
+        cases.add(refused("beta-pricing-instruments", BETA, replaceInModel(BETA, "cross_section_intercept = false",
+                "cross_section_intercept = false\ninstrument_columns = [\"const\"]"), BETA, 23, "instrument_columns",
+                "factor_instruments"));
+        cases.add(refused("beta-pricing-start-values", BETA, replaceInModel(BETA, "cross_section_intercept = false",
+                "cross_section_intercept = false\nstart_values = { lambda_MKT = 0.005 }"), BETA, 23, "closed-form"));
+        cases.add(refused("beta-pricing-intercept-name", BETA, replaceInModel(BETA, "cross_section_intercept = false",
+                "cross_section_intercept = true").andThen(replaceInModel(BETA, "\"TIDE\"]", "\"0\"]")), BETA, 20,
+                "lambda_0"));
+        cases.add(refused("beta-pricing-too-few-assets", BETA, replaceInModel(BETA, "[model]",
+                "assets = [\"S1T1\", \"S1T2\", \"S1T3\"]\n\n[model]"), BETA, 22, "at least 4 test assets"));
+        cases.add(withArgs(refused("beta-pricing-s-sets", BETA, cli -> { }, "--s-sets", 0, "singular by construction"),
+                "--s-sets"));
+        cases.add(withArgs(onVerb("compare", refused("compare-beta-pricing", BETA, cli -> { }, BETA, 19,
+                "beta-pricing", "linear-factor")), "{root}/models/" + THREE, "{root}/models/" + BETA));
         // Command line
         cases.add(withArgs(refused("unknown-method-option", POWER, cli -> { }, "three-step", 0, "one-step"), "--method",
                 "three-step"));

@@ -66,6 +66,21 @@ class FamilyDerivativesTest {
                 new double[] {3 * random.nextGaussian(), 3 * random.nextGaussian()});
     }
 
+    @ParameterizedTest(name = "seed {0}")
+    @ValueSource(longs = {61L, 62L, 63L, 64L})
+    void betaPricingSystem(long seed) {
+        FamilyFixtures data = new FamilyFixtures(seed, 60, 4, 2);
+        Random random = new Random(seed);
+        boolean intercept = seed % 2 == 0;
+        BetaPricingErrors errors = new BetaPricingErrors(data.excess, data.factors, ASSETS, FACTORS,
+                seed < 63 ? BetaPricingErrors.CrossSection.OLS : BetaPricingErrors.CrossSection.GLS, intercept);
+        double[] theta = new double[errors.parameterNames().size()];
+        for (int p = 0; p < theta.length; p++) {
+            theta[p] = p < errors.crossSectionCoefficients() ? 0.01 * random.nextGaussian() : random.nextGaussian();
+        }
+        assertMatches(errors, theta);
+    }
+
     private static void assertMatches(ObservationErrors family, double[] theta) {
         double[][] analytic = FamilyFixtures.derivatives(family, theta);
         double[][] numeric = CentralDifferences.derivatives(family, theta);

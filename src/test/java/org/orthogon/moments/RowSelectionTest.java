@@ -51,9 +51,47 @@ class RowSelectionTest {
                 new Case("expression", new ExpressionSdfErrors("beta * cons_growth^(-gamma)", List.of("beta", "gamma"),
                         columns, data.gross, ASSETS, Payoff.GROSS), new double[] {0.97, 4}));
         double[][] instruments = instruments(T);
-        return cases.stream().flatMap(c -> Stream.of(
+        // The beta-pricing system takes no instruments (its selection is written for the unscaled moments).
+        BetaPricingErrors beta = new BetaPricingErrors(data.excess, data.factors, ASSETS, FACTORS,
+                BetaPricingErrors.CrossSection.GLS, true);
+        double[] betaTheta = beta.fixedSelection().orElseThrow().solve();
+        return Stream.concat(cases.stream().flatMap(c -> Stream.of(
                 Arguments.of(c, ScaledMoments.unscaled(c.family())),
-                Arguments.of(c, ScaledMoments.scaled(c.family(), instruments, List.of("const", "z")))));
+                Arguments.of(c, ScaledMoments.scaled(c.family(), instruments, List.of("const", "z"))))),
+                Stream.of(Arguments.of(new Case("beta pricing", beta, betaTheta), ScaledMoments.unscaled(beta))));
+    }
+
+    /** The payoffs, or an empty matrix for moments that price none (the beta-pricing system). */
+    private static DMatrixRMaj payoffs(ScaledMoments model) {
+        return model.fixedSelection().isPresent() ? new DMatrixRMaj(model.observations(), model.momentCount())
+                : model.payoffs();
+    }
+
+    @org.junit.jupiter.api.Test
+    void aWindowOfTheBetaPricingSystemIsSolvedOnItsOwnRows() {
+        FamilyFixtures data = new FamilyFixtures(5, T, ASSETS.size(), FACTORS.size());
+        for (BetaPricingErrors.CrossSection weighting : BetaPricingErrors.CrossSection.values()) {
+            ScaledMoments model = ScaledMoments.unscaled(new BetaPricingErrors(data.excess, data.factors, ASSETS,
+                    FACTORS, weighting, false));
+            ScaledMoments window = model.rows(7, 31);
+            FixedSelection selection = window.fixedSelection().orElseThrow();
+            double[] theta = selection.solve();
+            DMatrixRMaj selected = new DMatrixRMaj(theta.length, 1);
+            org.ejml.dense.row.CommonOps_DDRM.mult(selection.matrix(theta), window.meanMoments(theta), selected);
+            for (double value : selected.data) {
+                assertThat(value).isCloseTo(0.0, within(1e-15));
+            }
+            double[] full = model.fixedSelection().orElseThrow().solve();
+            assertThat(theta).isNotEqualTo(full);
+            assertThat(window.select(IntStream.range(0, 24).toArray()).fixedSelection().orElseThrow().solve())
+                    .isEqualTo(theta);
+            assertThatThrownBy(model::payoffs).isInstanceOf(UnsupportedOperationException.class);
+            assertThatThrownBy(() -> model.meanDiscountFactor(theta)).isInstanceOf(UnsupportedOperationException.class);
+            assertThat(model.distanceMoments()).isEmpty();
+            assertThatThrownBy(() -> ScaledMoments.scaled(new BetaPricingErrors(data.excess, data.factors, ASSETS,
+                    FACTORS, weighting, false), instruments(T), List.of("const", "z")))
+                    .isInstanceOf(IllegalArgumentException.class);
+        }
     }
 
     private static double[][] instruments(int rows) {
@@ -73,9 +111,11 @@ class RowSelectionTest {
         assertThat(all.momentNames()).isEqualTo(model.momentNames());
         assertThat(all.pricingMomentCount()).isEqualTo(model.pricingMomentCount());
         assertThat(all.contributions(c.theta()).data).isEqualTo(model.contributions(c.theta()).data);
-        assertThat(all.payoffs().data).isEqualTo(model.payoffs().data);
+        assertThat(payoffs(all).data).isEqualTo(payoffs(model).data);
         assertThat(all.meanJacobian(c.theta()).data).isEqualTo(model.meanJacobian(c.theta()).data);
-        assertThat(all.meanDiscountFactor(c.theta())).isEqualTo(model.meanDiscountFactor(c.theta()));
+        if (model.fixedSelection().isEmpty()) {
+            assertThat(all.meanDiscountFactor(c.theta())).isEqualTo(model.meanDiscountFactor(c.theta()));
+        }
     }
 
     @ParameterizedTest(name = "{0}, {1}")
@@ -90,8 +130,8 @@ class RowSelectionTest {
         assertThat(window.meanJacobian(c.theta()).data).isEqualTo(selected.meanJacobian(c.theta()).data);
         DMatrixRMaj full = model.contributions(c.theta());
         DMatrixRMaj part = window.contributions(c.theta());
-        DMatrixRMaj fullPayoffs = model.payoffs();
-        DMatrixRMaj partPayoffs = window.payoffs();
+        DMatrixRMaj fullPayoffs = payoffs(model);
+        DMatrixRMaj partPayoffs = payoffs(window);
         for (int t = 0; t < to - from; t++) {
             for (int k = 0; k < model.momentCount(); k++) {
                 assertThat(part.get(t, k)).isEqualTo(full.get(from + t, k));
