@@ -6,6 +6,9 @@ import java.time.Instant;
 import java.util.List;
 import java.util.concurrent.Callable;
 import org.orthogon.analysis.SensitivityGrid;
+import org.orthogon.bootstrap.BootstrapPlan;
+import org.orthogon.bootstrap.FitBootstrap;
+import org.orthogon.report.BootstrapReport;
 import org.orthogon.gmm.GmmFit;
 import org.orthogon.report.CheckReport;
 import org.orthogon.report.ConsoleReport;
@@ -46,6 +49,13 @@ final class FitCommand implements Callable<Integer> {
             + "rules; with and without prewhitening) and flag verdicts that differ at 5%%")
     boolean sensitivity;
 
+    @Mixin
+    BootstrapOptions bootstrap;
+
+    @Option(names = "--seed", paramLabel = "S", description = "seed of the bootstrap's random draws (default "
+            + org.orthogon.bootstrap.BootstrapPlan.DEFAULT_SEED + ")")
+    Long seed;
+
     @picocli.CommandLine.Spec
     picocli.CommandLine.Model.CommandSpec commandSpec;
 
@@ -55,6 +65,7 @@ final class FitCommand implements Callable<Integer> {
         String folderName = ResultOptions.stem(modelFile);
         output.checkEarly(folderName);
         int threadCount = threads.count();
+        bootstrap.check();
         RunSpec spec = overrides.apply(ModelFile.read(modelFile));
         FittedRun run = FittedRun.of(spec);
         PreparedRun prepared = run.prepared();
@@ -64,6 +75,15 @@ final class FitCommand implements Callable<Integer> {
                         choice -> FittedRun.options(spec.withEstimation(spec.estimation().withLongRun(choice)), prepared),
                         threadCount)
                 : List.of();
+        BootstrapPlan plan = bootstrap.plan(prepared.sample().observations(), seed);
+        FitBootstrap.Result resampled = null;
+        if (plan != null) {
+            try (Progress progress = Progress.start("bootstrap", plan.replications())) {
+                resampled = FitBootstrap.run(prepared.moments(), fit, FittedRun.options(spec, prepared), plan,
+                        threadCount, progress);
+            }
+        }
+        FitBootstrap.Result bootstrapResult = resampled;
         List<FittedRun.RestrictionTest> restrictions = run.restrictionTests();
         ObjectNode results = JsonResults.fit(spec, prepared.sample(), fit);
         JsonResults.addInputWarnings(results, prepared.warnings());
@@ -72,6 +92,9 @@ final class FitCommand implements Callable<Integer> {
         }
         if (sensitivity) {
             SensitivityReport.addTo(results, grid, prepared.moments().parameterNames());
+        }
+        if (bootstrapResult != null) {
+            BootstrapReport.addTo(results, bootstrapResult);
         }
         var premia = run.riskPremia();
         premia.ifPresent(p -> JsonResults.addRiskPremia(results, p));
@@ -83,7 +106,12 @@ final class FitCommand implements Callable<Integer> {
             folder = FitReport.writeFolder(output.target(folderName), output.overwrite, results, spec, prepared, fit,
                     premia.orElse(null), restrictions, grid,
                     new Manifest.Run("fit", commandSpec.commandLine().getParseResult().originalArgs(),
-                            Version.current(), started, Manifest.seeds(fit)));
+                            Version.current(), started, seeds(fit, bootstrapResult)),
+                    report -> {
+                        if (bootstrapResult != null) {
+                            BootstrapReport.addSection(report, bootstrapResult);
+                        }
+                    });
         }
         if (!output.quiet) {
             PrintWriter out = commandSpec.commandLine().getOut();
@@ -92,11 +120,23 @@ final class FitCommand implements Callable<Integer> {
             if (sensitivity) {
                 out.print("\n" + SensitivityReport.render(grid, prepared.moments().parameterNames()));
             }
+            if (bootstrapResult != null) {
+                out.print(BootstrapReport.render(bootstrapResult));
+            }
             if (folder != null) {
                 out.println("\nReport folder: " + CheckReport.display(folder));
             }
             out.flush();
         }
         return Main.EXIT_OK;
+    }
+
+    /** The HJ seed of the fit and, with --bootstrap, the bootstrap's seed. */
+    private static java.util.Map<String, Long> seeds(GmmFit fit, FitBootstrap.Result bootstrap) {
+        java.util.Map<String, Long> seeds = new java.util.TreeMap<>(Manifest.seeds(fit));
+        if (bootstrap != null) {
+            seeds.put("bootstrap", bootstrap.seed());
+        }
+        return seeds;
     }
 }

@@ -6,10 +6,6 @@ import java.util.Map;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
-import java.util.function.IntConsumer;
-import me.tongfei.progressbar.ProgressBar;
-import me.tongfei.progressbar.ProgressBarBuilder;
-import me.tongfei.progressbar.ProgressBarStyle;
 import org.orthogon.analysis.Stability;
 import org.orthogon.analysis.SupWaldDistribution;
 import org.orthogon.gmm.EstimationMethod;
@@ -161,36 +157,5 @@ final class StabilityCommand implements Callable<Integer> {
 
     private RunSpec withCommandLine(RunSpec spec) {
         return spec.withStability(spec.stability().withCommandLine(splits, trimming, window, step, expanding));
-    }
-
-    /** A progress bar on standard error, only when a person is watching a terminal. */
-    private static final class Progress implements IntConsumer, AutoCloseable {
-        private final ProgressBar bar;
-
-        private Progress(ProgressBar bar) {
-            this.bar = bar;
-        }
-
-        static Progress start(String task, int total) {
-            if (System.console() == null || total < 20) {
-                return new Progress(null);
-            }
-            return new Progress(new ProgressBarBuilder().setTaskName(task).setInitialMax(total)
-                    .setStyle(ProgressBarStyle.ASCII).continuousUpdate().build());
-        }
-
-        @Override
-        public void accept(int ignored) {
-            if (bar != null) {
-                bar.step();
-            }
-        }
-
-        @Override
-        public void close() {
-            if (bar != null) {
-                bar.close();
-            }
-        }
     }
 }

@@ -113,6 +113,18 @@ public sealed interface Chart {
         }
     }
 
+    /**
+     * The distribution of simulated draws of a statistic as a histogram of counts, with a vertical line at
+     * one value (e.g. the bootstrap replications of J with the sample's J marked).
+     */
+    record Histogram(String id, String title, String xLabel, String yLabel, List<Double> draws, double marker,
+            String markerLabel) implements Chart {
+        public Histogram {
+            checkId(id);
+            draws = List.copyOf(draws);
+        }
+    }
+
     private static void checkId(String id) {
         if (!id.matches("[a-z0-9]+(-[a-z0-9]+)*")) {
             throw new IllegalArgumentException("chart id \"" + id + "\" must be lower-case words joined by hyphens");

@@ -37,6 +37,17 @@ public final class FitReport {
      */
     public static Report build(RunSpec spec, PreparedRun prepared, GmmFit fit, FittedRun.RiskPremiumEstimates premia,
             List<FittedRun.RestrictionTest> restrictions, List<SensitivityGrid.SensitivityRow> sensitivity) {
+        return build(spec, prepared, fit, premia, restrictions, sensitivity, report -> {
+        });
+    }
+
+    /**
+     * As {@link #build(RunSpec, PreparedRun, GmmFit, FittedRun.RiskPremiumEstimates, List, List)}, with
+     * {@code more} adding sections (the bootstrap) after the sensitivity grid.
+     */
+    public static Report build(RunSpec spec, PreparedRun prepared, GmmFit fit, FittedRun.RiskPremiumEstimates premia,
+            List<FittedRun.RestrictionTest> restrictions, List<SensitivityGrid.SensitivityRow> sensitivity,
+            java.util.function.Consumer<Report.Builder> more) {
         var sample = prepared.sample();
         Report.Builder report = Report.builder(spec.title()).key(spec.modelFile().getFileName().toString()
                 .replaceFirst("\\.toml$", ""))
@@ -64,6 +75,7 @@ public final class FitReport {
             report.section("Sensitivity to the long-run covariance")
                     .table(SensitivityReport.table(sensitivity, fit.parameterNames()));
         }
+        more.accept(report);
         if (!prepared.notes().isEmpty()) {
             report.section("Data preparation");
             prepared.notes().forEach(report::paragraph);
@@ -97,8 +109,18 @@ public final class FitReport {
             PreparedRun prepared, GmmFit fit, FittedRun.RiskPremiumEstimates premia,
             List<FittedRun.RestrictionTest> restrictions, List<SensitivityGrid.SensitivityRow> sensitivity,
             Manifest.Run run) {
-        return ReportFiles.publish(target, overwrite, build(spec, prepared, fit, premia, restrictions, sensitivity),
-                results, run, List.of(spec),
+        return writeFolder(target, overwrite, results, spec, prepared, fit, premia, restrictions, sensitivity, run,
+                report -> {
+                });
+    }
+
+    /** As the method above, with {@code more} adding sections to the document (see {@link #build}). */
+    public static Path writeFolder(Path target, boolean overwrite, ObjectNode results, RunSpec spec,
+            PreparedRun prepared, GmmFit fit, FittedRun.RiskPremiumEstimates premia,
+            List<FittedRun.RestrictionTest> restrictions, List<SensitivityGrid.SensitivityRow> sensitivity,
+            Manifest.Run run, java.util.function.Consumer<Report.Builder> more) {
+        return ReportFiles.publish(target, overwrite,
+                build(spec, prepared, fit, premia, restrictions, sensitivity, more), results, run, List.of(spec),
                 List.of(prepared.inputs()));
     }
 
