@@ -8,6 +8,9 @@ import java.util.List;
 import java.util.concurrent.Callable;
 import org.orthogon.analysis.Stability;
 import org.orthogon.analysis.SupWaldDistribution;
+import org.orthogon.bootstrap.BootstrapPlan;
+import org.orthogon.bootstrap.SupWaldBootstrap;
+import org.orthogon.data.InputException;
 import org.orthogon.gmm.EstimationMethod;
 import org.orthogon.gmm.GmmOptions;
 import org.orthogon.gmm.InitialWeight;
@@ -63,7 +66,8 @@ final class StabilityCommand implements Callable<Integer> {
     boolean expanding;
 
     @Option(names = "--seed", paramLabel = "N", description = "seed of the sup-Wald null simulation (default "
-            + SupWaldDistribution.DEFAULT_SEED + ")")
+            + SupWaldDistribution.DEFAULT_SEED + ") and of the --bootstrap draws (default "
+            + BootstrapPlan.DEFAULT_SEED + ")")
     Long seed;
 
     @Mixin
@@ -71,6 +75,9 @@ final class StabilityCommand implements Callable<Integer> {
 
     @Mixin
     ThreadsOption threads;
+
+    @Mixin
+    BootstrapOptions bootstrap;
 
     @picocli.CommandLine.Spec
     picocli.CommandLine.Model.CommandSpec commandSpec;
@@ -81,12 +88,18 @@ final class StabilityCommand implements Callable<Integer> {
         String folderName = ResultOptions.stem(modelFile) + "-stability";
         output.checkEarly(folderName);
         int threadCount = threads.count();
+        bootstrap.check();
+        if (bootstrap.requested() && noSupWald) {
+            throw InputException.general().problem("--bootstrap was given with --no-sup-wald",
+                    "drop --no-sup-wald: the stability bootstrap resamples the sup-Wald statistic");
+        }
         RunSpec spec = withCommandLine(overrides.apply(ModelFile.read(modelFile)));
         StabilitySpec choices = spec.stability();
         PreparedRun prepared = ModelAssembler.prepare(spec);
         StabilitySpec.Plan plan = choices.plan(spec, prepared, !noSupWald);
         List<Integer> splitIndices = plan.splitIndices();
         List<String> warnings = new ArrayList<>();
+        BootstrapPlan bootstrapPlan = bootstrap.plan(prepared.sample().observations(), seed);
 
         GmmOptions efficient = FittedRun.options(spec, prepared);
         List<GmmOptions> variants = new ArrayList<>(List.of(efficient));
@@ -107,6 +120,14 @@ final class StabilityCommand implements Callable<Integer> {
                             SupWaldDistribution.DEFAULT_DRAWS, threadCount, progress);
                 }
             }
+            SupWaldBootstrap.Result supBootstrap = null;
+            if (sup != null && bootstrapPlan != null) {
+                try (Progress progress = Progress.start("sup-Wald bootstrap, " + options.method().id(),
+                        bootstrapPlan.replications())) {
+                    supBootstrap = SupWaldBootstrap.run(prepared.moments(), prepared.startValues(), options,
+                            choices.trimming(), sup.statistic(), bootstrapPlan, threadCount, progress);
+                }
+            }
             List<Stability.PeriodFit> rolling = List.of();
             if (choices.window().isPresent()) {
                 try (Progress progress = Progress.start("windows, " + options.method().id(), plan.windowCount())) {
@@ -115,7 +136,7 @@ final class StabilityCommand implements Callable<Integer> {
                 }
             }
             results.add(new StabilityReport.Variant(label, periods,
-                    periods.isEmpty() ? null : Stability.equalityTest(periods), sup, rolling));
+                    periods.isEmpty() ? null : Stability.equalityTest(periods), sup, rolling, supBootstrap));
         }
         plan.warnings().forEach(warning -> warnings.add(warning.text()));
         ObjectNode json = StabilityReport.json(spec, prepared.sample(), results);
@@ -128,7 +149,8 @@ final class StabilityCommand implements Callable<Integer> {
             folder = ReportFiles.publish(output.target(folderName), output.overwrite,
                     StabilityDocument.build(spec, prepared.sample(), results, warnings), json,
                     new Manifest.Run("stability", commandSpec.commandLine().getParseResult().originalArgs(),
-                            Version.current(), started, seeds(results, noSupWald ? null : simulationSeed)),
+                            Version.current(), started, seeds(results, noSupWald ? null : simulationSeed,
+                                    bootstrapPlan)),
                     List.of(spec), List.of(prepared.inputs()));
         }
         if (!output.quiet) {
@@ -142,7 +164,8 @@ final class StabilityCommand implements Callable<Integer> {
     }
 
     /** The sup-Wald simulation's seed (when it ran) and the HJ seed of every period and window fit. */
-    private static Map<String, Long> seeds(List<StabilityReport.Variant> variants, Long supWald) {
+    private static Map<String, Long> seeds(List<StabilityReport.Variant> variants, Long supWald,
+            BootstrapPlan bootstrap) {
         List<org.orthogon.gmm.GmmFit> fits = new ArrayList<>();
         for (StabilityReport.Variant variant : variants) {
             variant.periods().forEach(period -> fits.add(period.fit()));
@@ -151,6 +174,9 @@ final class StabilityCommand implements Callable<Integer> {
         Map<String, Long> seeds = new java.util.TreeMap<>(Manifest.seeds(fits));
         if (supWald != null) {
             seeds.put("sup_wald", supWald);
+        }
+        if (bootstrap != null) {
+            seeds.put("bootstrap", bootstrap.seed());
         }
         return seeds;
     }
