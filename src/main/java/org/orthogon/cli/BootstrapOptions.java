@@ -33,28 +33,52 @@ final class BootstrapOptions {
      * refuses a bad B, block length or scheme, and block options without --bootstrap.
      */
     BootstrapPlan plan(int observations, Long seed) {
+        check();
+        if (replications == null) {
+            return null;
+        }
+        return new BootstrapPlan(replications, blockLength(blockLength, observations), scheme(scheme),
+                seed == null ? BootstrapPlan.DEFAULT_SEED : seed);
+    }
+
+    /** The block length given (0 for the automatic rule), refused when below one or above T/2. */
+    static int blockLength(Integer given, int observations) {
+        if (given == null) {
+            return 0;
+        }
+        if (given < 1) {
+            throw InputException.general().problem("--block-length " + given + " is below one",
+                    "give a whole number of rows per block of at least 1, or leave it out for the automatic rule");
+        }
+        if (given > observations / 2) {
+            throw InputException.general().problem("--block-length " + given + " leaves fewer than two blocks "
+                    + "in the " + observations + " observations", "give a block length of at most " + observations / 2
+                    + ", or leave it out for the automatic rule");
+        }
+        return given;
+    }
+
+    /** The block scheme named (moving when none is), refused when unknown. */
+    static BlockScheme scheme(String given) {
+        if (given == null) {
+            return BootstrapPlan.DEFAULT_SCHEME;
+        }
+        try {
+            return BlockScheme.fromId(given);
+        } catch (IllegalArgumentException e) {
+            throw InputException.general().problem("--block-scheme \"" + given + "\" is not a block scheme",
+                    "use one of " + BlockScheme.ids());
+        }
+    }
+
+    /** The checks that need no data: run before any file is read. */
+    void check() {
         if (replications == null) {
             if (blockLength != null || scheme != null) {
                 throw InputException.general().problem((blockLength != null ? "--block-length" : "--block-scheme")
                         + " was given without --bootstrap", "add --bootstrap B (e.g. --bootstrap 999), or drop the "
                         + "block option");
             }
-            return null;
-        }
-        check();
-        if (blockLength != null && blockLength > observations / 2) {
-            throw InputException.general().problem("--block-length " + blockLength + " leaves fewer than two blocks "
-                    + "in the " + observations + " observations", "give a block length of at most " + observations / 2
-                    + ", or leave it out for the automatic rule");
-        }
-        BlockScheme blocks = scheme == null ? BootstrapPlan.DEFAULT_SCHEME : BlockScheme.fromId(scheme);
-        return new BootstrapPlan(replications, blockLength == null ? 0 : blockLength, blocks,
-                seed == null ? BootstrapPlan.DEFAULT_SEED : seed);
-    }
-
-    /** The checks that need no data: run before any file is read. */
-    void check() {
-        if (replications == null) {
             return;
         }
         if (replications < BootstrapPlan.MIN_REPLICATIONS || replications > BootstrapPlan.MAX_REPLICATIONS) {
@@ -63,17 +87,7 @@ final class BootstrapOptions {
                     + BootstrapPlan.MIN_REPLICATIONS + " replications (below that no p-value can fall under 5%), "
                     + "e.g. --bootstrap 999");
         }
-        if (blockLength != null && blockLength < 1) {
-            throw InputException.general().problem("--block-length " + blockLength + " is below one",
-                    "give a whole number of rows per block of at least 1, or leave it out for the automatic rule");
-        }
-        if (scheme != null) {
-            try {
-                BlockScheme.fromId(scheme);
-            } catch (IllegalArgumentException e) {
-                throw InputException.general().problem("--block-scheme \"" + scheme + "\" is not a block scheme",
-                        "use one of " + BlockScheme.ids());
-            }
-        }
+        blockLength(blockLength, Integer.MAX_VALUE);
+        scheme(scheme);
     }
 }
