@@ -56,8 +56,8 @@ class BootstrapOptionSweepTest {
                 tests.add(DynamicTest.dynamicTest(String.join(" ", stability) + " " + model,
                         () -> exitsCleanly(stability)));
             }
-            for (String alternative : List.of("S1T1 = 0.01", "b_MKT = 1, S1T2 = -0.002", "gamma = 2", "beta = x",
-                    "S1T1 = 0.01, S1T1 = 0.02", "= 3", "")) {
+            for (String alternative : List.of("TIDE_LO = 0.01", "b_MKT = 1, TIDE_HI = -0.002", "gamma = 2", "beta = x",
+                    "TIDE_LO = 0.01, TIDE_LO = 0.02", "= 3", "")) {
                 List<String> carlo = List.of("montecarlo", file, "--quiet", "--replications", "10", "--alternative",
                         alternative);
                 tests.add(DynamicTest.dynamicTest("montecarlo --alternative \"" + alternative + "\" " + model,
