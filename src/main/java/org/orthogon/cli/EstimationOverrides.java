@@ -29,7 +29,8 @@ final class EstimationOverrides {
 
     @Option(names = "--lags", paramLabel = "L",
             description = "a lag count L: weights on lags 1..L (b = L + 1 for bartlett, parzen, tukey-hanning; "
-                    + "b = L for truncated); not for kernels that weight every lag")
+                    + "b = L for truncated); not for kernels that weight every lag. Over the heteroskedasticity-"
+                    + "consistent S a model file gets by default (no kernel written), it means bartlett")
     Integer lags;
 
     @Option(names = "--bandwidth", paramLabel = "B", description = "a bandwidth b, \"andrews\" or \"newey-west\"")
@@ -66,6 +67,11 @@ final class EstimationOverrides {
     RunSpec apply(RunSpec spec) {
         EstimationMethod newMethod = method == null ? null : parseMethod(method);
         Kernel newKernel = kernel == null ? null : parseKernel(kernel);
+        if (newKernel == null && (lags != null || bandwidth != null) && spec.estimation().kernel() == Kernel.NONE
+                && !spec.writes("estimation", "kernel")) {
+            // Lags over the S without lags that the Euler families get by default: they mean Bartlett.
+            newKernel = Kernel.BARTLETT;
+        }
         if (lags != null && bandwidth != null) {
             throw InputException.general().problem("--lags and --bandwidth were both given",
                     "give one of them: --lags L or --bandwidth B");

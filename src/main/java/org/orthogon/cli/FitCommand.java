@@ -10,6 +10,12 @@ import org.orthogon.bootstrap.BootstrapPlan;
 import org.orthogon.bootstrap.FitBootstrap;
 import org.orthogon.report.BootstrapReport;
 import org.orthogon.gmm.GmmFit;
+import org.orthogon.gmm.GmmOptions;
+import org.orthogon.gmm.WindmeijerCorrection;
+import org.orthogon.report.RobustSetsReport;
+import org.orthogon.robust.RobustSetOptions;
+import org.orthogon.robust.RobustSets;
+import java.util.Optional;
 import org.orthogon.report.CheckReport;
 import org.orthogon.report.ConsoleReport;
 import org.orthogon.report.FitReport;
@@ -56,6 +62,9 @@ final class FitCommand implements Callable<Integer> {
             + org.orthogon.bootstrap.BootstrapPlan.DEFAULT_SEED + ")")
     Long seed;
 
+    @Mixin
+    RobustSetArguments robustSets;
+
     @picocli.CommandLine.Spec
     picocli.CommandLine.Model.CommandSpec commandSpec;
 
@@ -67,9 +76,16 @@ final class FitCommand implements Callable<Integer> {
         int threadCount = threads.count();
         bootstrap.check();
         RunSpec spec = overrides.apply(ModelFile.read(modelFile));
+        RobustSetOptions robustOptions = robustSets.options(spec.estimation().confidenceLevel());
         FittedRun run = FittedRun.of(spec);
         PreparedRun prepared = run.prepared();
+        GmmOptions gmmOptions = FittedRun.options(spec, prepared);
+        RobustSetArguments.checkNames(robustOptions, prepared.moments().parameterNames(), gmmOptions.bounds());
         GmmFit fit = run.fit();
+        Optional<WindmeijerCorrection.Result> windmeijer = WindmeijerCorrection.of(prepared.moments(),
+                prepared.startValues(), gmmOptions, fit);
+        RobustSets.Analysis robust = robustOptions == null ? null : RobustSets.compute(prepared.moments(), fit,
+                gmmOptions.longRun(), gmmOptions.smallSample(), gmmOptions.bounds(), robustOptions);
         List<SensitivityGrid.SensitivityRow> grid = sensitivity
                 ? SensitivityGrid.run(prepared.moments(), prepared.startValues(), fit, spec.estimation().centered(),
                         choice -> FittedRun.options(spec.withEstimation(spec.estimation().withLongRun(choice)), prepared),
@@ -79,14 +95,17 @@ final class FitCommand implements Callable<Integer> {
         FitBootstrap.Result resampled = null;
         if (plan != null) {
             try (Progress progress = Progress.start("bootstrap", plan.replications())) {
-                resampled = FitBootstrap.run(prepared.moments(), fit, FittedRun.options(spec, prepared), plan,
-                        threadCount, progress);
+                resampled = FitBootstrap.run(prepared.moments(), fit, gmmOptions, plan, threadCount, progress);
             }
         }
         FitBootstrap.Result bootstrapResult = resampled;
         List<FittedRun.RestrictionTest> restrictions = run.restrictionTests();
         ObjectNode results = JsonResults.fit(spec, prepared.sample(), fit);
         JsonResults.addInputWarnings(results, prepared.warnings());
+        JsonResults.addWindmeijer(results, fit, windmeijer);
+        if (robust != null) {
+            RobustSetsReport.addTo(results, robust);
+        }
         if (!restrictions.isEmpty()) {
             JsonResults.addRestrictions(results, restrictions);
         }
@@ -105,18 +124,18 @@ final class FitCommand implements Callable<Integer> {
         if (output.requested()) {
             folder = FitReport.writeFolder(output.target(folderName), output.overwrite, results, spec, prepared, fit,
                     premia.orElse(null), restrictions, grid,
+                    new FitReport.Extras(windmeijer.orElse(null), robust, bootstrapResult),
                     new Manifest.Run("fit", commandSpec.commandLine().getParseResult().originalArgs(),
-                            Version.current(), started, seeds(fit, bootstrapResult)),
-                    report -> {
-                        if (bootstrapResult != null) {
-                            BootstrapReport.addSection(report, bootstrapResult);
-                        }
-                    });
+                            Version.current(), started, seeds(fit, bootstrapResult)));
         }
         if (!output.quiet) {
             PrintWriter out = commandSpec.commandLine().getOut();
-            out.print(ConsoleReport.render(spec, prepared, fit, restrictions));
+            out.print(ConsoleReport.render(spec, prepared, fit, restrictions,
+                    windmeijer.map(WindmeijerCorrection.Result::stdErrors).orElse(null)));
             premia.ifPresent(p -> out.print(ConsoleReport.renderRiskPremia(p)));
+            if (robust != null) {
+                out.print(RobustSetsReport.render(robust));
+            }
             if (sensitivity) {
                 out.print("\n" + SensitivityReport.render(grid, prepared.moments().parameterNames()));
             }

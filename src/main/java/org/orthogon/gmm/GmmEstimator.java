@@ -222,11 +222,7 @@ public final class GmmEstimator {
                         + "or use a fixed (one-step) weight", 1.0 / rcondS));
             }
         }
-        if (k > t / 10.0) {
-            warnings.add(String.format("K = %d moments against T = %d observations (K > T/10): the efficient "
-                    + "weight is estimated imprecisely and the J test over-rejects in samples this size; "
-                    + "prefer fewer assets or instruments, or a fixed (one-step) weight", k, t));
-        }
+        ManyMoments.warning(k, t, finalS.kernel(), finalS.bandwidth()).ifPresent(warnings::add);
 
         DMatrixRMaj jacobian = model.meanJacobian(theta);
         DMatrixRMaj covariance;

@@ -121,7 +121,9 @@ public interface MomentModel {
      * The Jacobian of every row, ∂f_t(θ)/∂θ': a T x (K·P) matrix whose row t holds the K x P matrix
      * of observation t row-major, so that the mean Jacobian D is the mean of the rows. For a model linear
      * in θ it does not depend on θ and f_t(θ) = f_t(0) + J_t θ, so window means of f_t(0) and J_t, and
-     * with them every subsample's closed-form estimate, come from running sums.
+     * with them every subsample's closed-form estimate, come from running sums. Finite-sample corrections
+     * of the two-step covariance (Windmeijer 2005) and the K statistic (Kleibergen 2005) need these
+     * per-observation derivatives too.
      */
     default DMatrixRMaj rowJacobians(double[] theta) {
         throw new UnsupportedOperationException(getClass().getSimpleName() + " has no per-row Jacobians");

@@ -152,6 +152,10 @@ public final class ScaledMoments implements MomentModel {
         kronecker(raw, out.data);
     }
 
+    /**
+     * ∂f_t/∂θ' row by row from the family's ∂e_t/∂θ_p (analytic for the built-in families, central
+     * differences for formula SDFs), times the lagged instruments when the moments are scaled.
+     */
     @Override
     public DMatrixRMaj rowJacobians(double[] theta) {
         checkLength(theta);

@@ -125,6 +125,51 @@ public sealed interface Chart {
         }
     }
 
+    /** A named line of (x, y) points. */
+    record Curve(String name, List<Point> points) {
+        public Curve {
+            points = List.copyOf(points);
+        }
+    }
+
+    /** A horizontal reference line at a value, labelled. */
+    record Level(double value, String label) {
+    }
+
+    /**
+     * Statistics drawn against a parameter value, each with its horizontal critical-value line, and a vertical
+     * line at the point estimate: e.g. the concentrated S and K statistics of weak-identification-robust sets,
+     * whose sets are the values where a curve lies below its line. Points with a non-finite value leave a gap.
+     */
+    record Profile(String id, String title, String xLabel, String yLabel, List<Curve> curves, List<Level> levels,
+            double marker, String markerLabel) implements Chart {
+        public Profile {
+            checkId(id);
+            curves = List.copyOf(curves);
+            levels = List.copyOf(levels);
+        }
+    }
+
+    /**
+     * A region of a plane on a rectangular grid: the cells whose flag is set are filled, with a marked point
+     * (e.g. a joint confidence set over two parameters, with the estimate). {@code inside[r][c]} belongs to
+     * (xs[c], ys[r]).
+     */
+    record Region(String id, String title, String xLabel, String yLabel, List<Double> xs, List<Double> ys,
+            List<List<Boolean>> inside, Point marker) implements Chart {
+        public Region {
+            checkId(id);
+            xs = List.copyOf(xs);
+            ys = List.copyOf(ys);
+            inside = inside.stream().map(List::copyOf).toList();
+            int columns = xs.size();
+            if (inside.size() != ys.size() || inside.stream().anyMatch(row -> row.size() != columns)) {
+                throw new IllegalArgumentException("region " + id + ": the flags must be " + ys.size() + " rows of "
+                        + xs.size());
+            }
+        }
+    }
+
     private static void checkId(String id) {
         if (!id.matches("[a-z0-9]+(-[a-z0-9]+)*")) {
             throw new IllegalArgumentException("chart id \"" + id + "\" must be lower-case words joined by hyphens");

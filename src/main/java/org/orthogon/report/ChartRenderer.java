@@ -156,6 +156,10 @@ public final class ChartRenderer {
             built = frontier(frontier);
         } else if (chart instanceof Chart.Histogram histogram) {
             built = histogram(histogram);
+        } else if (chart instanceof Chart.Profile profile) {
+            built = profile(profile);
+        } else if (chart instanceof Chart.Region region) {
+            built = region(region);
         } else {
             built = sequence((Chart.Sequence) chart);
         }
@@ -430,6 +434,98 @@ public final class ChartRenderer {
         counted.setAutoRangeIncludesZero(true);
         XYPlot plot = new XYPlot(data, axis(spec.xLabel()), counted, renderer);
         plot.addDomainMarker(reference(spec.marker(), spec.markerLabel()));
+        style(plot);
+        return new JFreeChart(null, LABEL, plot, false);
+    }
+
+    /**
+     * Curves against a parameter with their critical-value lines. The vertical axis starts at zero and stops at
+     * three times the largest line (values above are clipped), so the crossings that define the sets stay
+     * readable however large a statistic grows at the ends of the range.
+     */
+    private static JFreeChart profile(Chart.Profile spec) {
+        XYSeriesCollection data = new XYSeriesCollection();
+        for (Chart.Curve curve : spec.curves()) {
+            XYSeries series = new XYSeries(curve.name(), false);
+            for (Chart.Point p : curve.points()) {
+                series.add(p.x(), Double.isFinite(p.y()) ? Double.valueOf(p.y()) : null);
+            }
+            data.addSeries(series);
+        }
+        XYLineAndShapeRenderer renderer = new XYLineAndShapeRenderer(true, false);
+        for (int i = 0; i < spec.curves().size(); i++) {
+            renderer.setSeriesPaint(i, SERIES[i % SERIES.length]);
+            renderer.setSeriesStroke(i, new BasicStroke(1.6f));
+        }
+        XYPlot plot = new XYPlot(data, axis(spec.xLabel()), axis(spec.yLabel()), renderer);
+        double top = 0.0;
+        for (Chart.Level level : spec.levels()) {
+            plot.addRangeMarker(reference(level.value(), level.label()));
+            top = Math.max(top, level.value());
+        }
+        double highest = spec.curves().stream().flatMap(c -> c.points().stream()).mapToDouble(Chart.Point::y)
+                .filter(Double::isFinite).max().orElse(top);
+        plot.getRangeAxis().setRange(0.0, Math.max(Math.min(highest, 3.0 * top), top) * 1.05 + 1e-12);
+        if (Double.isFinite(spec.marker())) {
+            ValueMarker estimate = new ValueMarker(spec.marker(), INK, dashed());
+            estimate.setLabel(spec.markerLabel());
+            estimate.setLabelFont(TICK);
+            estimate.setLabelPaint(INK);
+            estimate.setLabelAnchor(RectangleAnchor.TOP_LEFT);
+            estimate.setLabelTextAnchor(TextAnchor.TOP_RIGHT);
+            plot.addDomainMarker(estimate);
+        }
+        style(plot);
+        JFreeChart chart = new JFreeChart(null, LABEL, plot, spec.curves().size() > 1);
+        if (chart.getLegend() != null) {
+            chart.getLegend().setItemFont(TICK);
+            chart.getLegend().setFrame(org.jfree.chart.block.BlockBorder.NONE);
+        }
+        return chart;
+    }
+
+    /** Grid cells of a region drawn as filled blocks, the marked point on top. */
+    private static JFreeChart region(Chart.Region spec) {
+        org.jfree.data.xy.DefaultXYZDataset cells = new org.jfree.data.xy.DefaultXYZDataset();
+        List<double[]> inside = new java.util.ArrayList<>();
+        for (int r = 0; r < spec.ys().size(); r++) {
+            for (int c = 0; c < spec.xs().size(); c++) {
+                if (spec.inside().get(r).get(c)) {
+                    inside.add(new double[] {spec.xs().get(c), spec.ys().get(r)});
+                }
+            }
+        }
+        double[][] xyz = new double[3][inside.size()];
+        for (int i = 0; i < inside.size(); i++) {
+            xyz[0][i] = inside.get(i)[0];
+            xyz[1][i] = inside.get(i)[1];
+            xyz[2][i] = 1.0;
+        }
+        cells.addSeries("inside", xyz);
+        org.jfree.chart.renderer.xy.XYBlockRenderer blocks = new org.jfree.chart.renderer.xy.XYBlockRenderer();
+        double width = spec.xs().size() > 1 ? spec.xs().get(1) - spec.xs().get(0) : 1.0;
+        double height = spec.ys().size() > 1 ? spec.ys().get(1) - spec.ys().get(0) : 1.0;
+        blocks.setBlockWidth(width);
+        blocks.setBlockHeight(height);
+        org.jfree.chart.renderer.LookupPaintScale scale = new org.jfree.chart.renderer.LookupPaintScale(0.0, 2.0,
+                Color.WHITE);
+        scale.add(0.5, new Color(ACCENT.getRed(), ACCENT.getGreen(), ACCENT.getBlue(), 150));
+        blocks.setPaintScale(scale);
+        NumberAxis x = axis(spec.xLabel());
+        NumberAxis y = axis(spec.yLabel());
+        XYPlot plot = new XYPlot(cells, x, y, blocks);
+        x.setRange(spec.xs().get(0) - width / 2, spec.xs().get(spec.xs().size() - 1) + width / 2);
+        y.setRange(spec.ys().get(0) - height / 2, spec.ys().get(spec.ys().size() - 1) + height / 2);
+        Chart.Point marker = spec.marker();
+        if (marker != null && Double.isFinite(marker.x()) && Double.isFinite(marker.y())) {
+            XYSeries point = new XYSeries(marker.label(), false);
+            point.add(marker.x(), marker.y());
+            XYLineAndShapeRenderer dot = new XYLineAndShapeRenderer(false, true);
+            dot.setSeriesPaint(0, INK);
+            dot.setSeriesShape(0, new Ellipse2D.Double(-4, -4, 8, 8));
+            plot.setDataset(1, new XYSeriesCollection(point));
+            plot.setRenderer(1, dot);
+        }
         style(plot);
         return new JFreeChart(null, LABEL, plot, false);
     }

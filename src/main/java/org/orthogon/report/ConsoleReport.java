@@ -27,6 +27,15 @@ public final class ConsoleReport {
     /** As {@link #render(RunSpec, SampleInfo, GmmFit, List)}, with the Wald tests of the restrictions. */
     public static String render(RunSpec spec, SampleInfo sample, GmmFit fit, List<String> dataNotes,
             List<FittedRun.RestrictionTest> restrictions) {
+        return render(spec, sample, fit, dataNotes, restrictions, null);
+    }
+
+    /**
+     * As above, with Windmeijer's (2005) corrected standard errors in a column beside the usual ones when
+     * {@code windmeijer} is not null.
+     */
+    public static String render(RunSpec spec, SampleInfo sample, GmmFit fit, List<String> dataNotes,
+            List<FittedRun.RestrictionTest> restrictions, double[] windmeijer) {
         StringBuilder out = new StringBuilder();
         out.append(spec.title()).append('\n');
         out.append(String.format(Locale.ROOT, "  %s SDF, %s GMM, %s %s to %s (T = %d), %s, %s%n",
@@ -36,15 +45,29 @@ public final class ConsoleReport {
 
         out.append("Parameters\n");
         String level = String.format(Locale.ROOT, "%.0f%%", 100 * fit.confidenceLevel());
-        TextTable parameters = new TextTable(List.of("parameter", "estimate", "std. error", "t-stat", "p-value",
-                level + " low", level + " high"));
+        List<String> header = new java.util.ArrayList<>(List.of("parameter", "estimate", "std. error", "t-stat",
+                "p-value", level + " low", level + " high"));
+        if (windmeijer != null) {
+            header.add(3, "Windmeijer s.e.");
+        }
+        TextTable parameters = new TextTable(header);
         List<ConfidenceInterval> intervals = fit.confidenceIntervals();
         for (int i = 0; i < fit.parameters().size(); i++) {
             ParameterEstimate p = fit.parameters().get(i);
-            parameters.row(List.of(p.name(), number(p.estimate()), number(p.stdError()), fixed(p.tStat(), 2),
-                    fixed(p.pValue(), 4), number(intervals.get(i).lower()), number(intervals.get(i).upper())));
+            List<String> row = new java.util.ArrayList<>(List.of(p.name(), number(p.estimate()), number(p.stdError()),
+                    fixed(p.tStat(), 2), fixed(p.pValue(), 4), number(intervals.get(i).lower()),
+                    number(intervals.get(i).upper())));
+            if (windmeijer != null) {
+                row.add(3, number(windmeijer[i]));
+            }
+            parameters.row(row);
         }
-        out.append(parameters.render("  ")).append('\n');
+        out.append(parameters.render("  "));
+        if (windmeijer != null) {
+            out.append("  Windmeijer s.e.: corrected for the estimated weight of two-step GMM (Windmeijer 2005); "
+                    + "t-stat, p-value and interval use the usual s.e.\n");
+        }
+        out.append('\n');
 
         ChiSquareTest over = fit.overidentification();
         out.append(over.kind().equals("hansen-j") ? "Overidentifying restrictions: Hansen J test\n"
@@ -67,9 +90,10 @@ public final class ConsoleReport {
 
         out.append(renderRestrictions(restrictions));
         GmmDiagnostics d = fit.diagnostics();
-        out.append(String.format(Locale.ROOT, "%ndiagnostics: condition number of S %s, of D'WD %s; %d solver "
-                + "iterations, %d weight updates, %s%n", number(d.conditionS()), number(d.conditionDWD()),
-                d.solverIterations(), d.weightUpdates(), d.clean() ? "converged" : "NOT CLEAN"));
+        out.append(String.format(Locale.ROOT, "%ndiagnostics: condition number of S %s, of D'WD %s; smallest singular "
+                + "value of the scaled D %s; %d solver iterations, %d weight updates, %s%n", number(d.conditionS()),
+                number(d.conditionDWD()), fixed(d.smallestSingularValue(), 3), d.solverIterations(), d.weightUpdates(),
+                d.clean() ? "converged" : "NOT CLEAN"));
         if (!fit.warnings().isEmpty() || !dataNotes.isEmpty()) {
             out.append('\n');
             for (String note : dataNotes) {
@@ -89,7 +113,13 @@ public final class ConsoleReport {
      */
     public static String render(RunSpec spec, PreparedRun prepared, GmmFit fit,
             List<FittedRun.RestrictionTest> restrictions) {
-        String text = render(spec, prepared.sample(), fit, prepared.notes(), restrictions);
+        return render(spec, prepared, fit, restrictions, null);
+    }
+
+    /** As above, with Windmeijer's corrected standard errors in a column when {@code windmeijer} is not null. */
+    public static String render(RunSpec spec, PreparedRun prepared, GmmFit fit,
+            List<FittedRun.RestrictionTest> restrictions, double[] windmeijer) {
+        String text = render(spec, prepared.sample(), fit, prepared.notes(), restrictions, windmeijer);
         if (prepared.warnings().isEmpty()) {
             return text;
         }

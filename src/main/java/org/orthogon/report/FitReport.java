@@ -31,23 +31,35 @@ public final class FitReport {
     }
 
     /**
+     * What a fit may add to its report beyond the estimates, each null when absent: Windmeijer's corrected
+     * standard errors, the weak-identification-robust sets, the recentred block bootstrap.
+     */
+    public record Extras(org.orthogon.gmm.WindmeijerCorrection.Result windmeijer,
+            org.orthogon.robust.RobustSets.Analysis robust, org.orthogon.bootstrap.FitBootstrap.Result bootstrap) {
+        /** Nothing extra. */
+        public static final Extras NONE = new Extras(null, null, null);
+
+        /** Windmeijer's standard errors and the robust sets, without a bootstrap. */
+        public Extras(org.orthogon.gmm.WindmeijerCorrection.Result windmeijer,
+                org.orthogon.robust.RobustSets.Analysis robust) {
+            this(windmeijer, robust, null);
+        }
+    }
+
+    /**
      * The document of one fit with the risk premia of a demeaned linear SDF (null when there are none), the
      * Wald tests of its restrictions and the rows of its kernel-and-bandwidth sensitivity grid (either list
      * may be empty).
      */
     public static Report build(RunSpec spec, PreparedRun prepared, GmmFit fit, FittedRun.RiskPremiumEstimates premia,
             List<FittedRun.RestrictionTest> restrictions, List<SensitivityGrid.SensitivityRow> sensitivity) {
-        return build(spec, prepared, fit, premia, restrictions, sensitivity, report -> {
-        });
+        return build(spec, prepared, fit, premia, restrictions, sensitivity, Extras.NONE);
     }
 
-    /**
-     * As {@link #build(RunSpec, PreparedRun, GmmFit, FittedRun.RiskPremiumEstimates, List, List)}, with
-     * {@code more} adding sections (the bootstrap) after the sensitivity grid.
-     */
+    /** As above, with Windmeijer's standard errors and the robust sets when {@code extras} holds them. */
     public static Report build(RunSpec spec, PreparedRun prepared, GmmFit fit, FittedRun.RiskPremiumEstimates premia,
             List<FittedRun.RestrictionTest> restrictions, List<SensitivityGrid.SensitivityRow> sensitivity,
-            java.util.function.Consumer<Report.Builder> more) {
+            Extras extras) {
         var sample = prepared.sample();
         Report.Builder report = Report.builder(spec.title()).key(spec.modelFile().getFileName().toString()
                 .replaceFirst("\\.toml$", ""))
@@ -58,7 +70,8 @@ public final class FitReport {
                         + ConsoleReport.count(fit.momentCount(), "moment") + ", P = "
                         + ConsoleReport.count(fit.parameters().size(), "parameter"))
                 .subtitle("Long-run covariance: " + ConsoleReport.describeLongRun(fit));
-        report.section("Parameters").table(parameters(fit));
+        report.section("Parameters").table(parameters(fit, extras.windmeijer() == null ? null
+                : extras.windmeijer().stdErrors()));
         if (premia != null) {
             report.table(riskPremia(premia));
         }
@@ -75,7 +88,12 @@ public final class FitReport {
             report.section("Sensitivity to the long-run covariance")
                     .table(SensitivityReport.table(sensitivity, fit.parameterNames()));
         }
-        more.accept(report);
+        if (extras.robust() != null) {
+            RobustSetsReport.addSection(report, extras.robust());
+        }
+        if (extras.bootstrap() != null) {
+            BootstrapReport.addSection(report, extras.bootstrap());
+        }
         if (!prepared.notes().isEmpty()) {
             report.section("Data preparation");
             prepared.notes().forEach(report::paragraph);
@@ -108,33 +126,41 @@ public final class FitReport {
     public static Path writeFolder(Path target, boolean overwrite, ObjectNode results, RunSpec spec,
             PreparedRun prepared, GmmFit fit, FittedRun.RiskPremiumEstimates premia,
             List<FittedRun.RestrictionTest> restrictions, List<SensitivityGrid.SensitivityRow> sensitivity,
-            Manifest.Run run) {
-        return writeFolder(target, overwrite, results, spec, prepared, fit, premia, restrictions, sensitivity, run,
-                report -> {
-                });
-    }
-
-    /** As the method above, with {@code more} adding sections to the document (see {@link #build}). */
-    public static Path writeFolder(Path target, boolean overwrite, ObjectNode results, RunSpec spec,
-            PreparedRun prepared, GmmFit fit, FittedRun.RiskPremiumEstimates premia,
-            List<FittedRun.RestrictionTest> restrictions, List<SensitivityGrid.SensitivityRow> sensitivity,
-            Manifest.Run run, java.util.function.Consumer<Report.Builder> more) {
-        return ReportFiles.publish(target, overwrite,
-                build(spec, prepared, fit, premia, restrictions, sensitivity, more), results, run, List.of(spec),
+            Extras extras, Manifest.Run run) {
+        return ReportFiles.publish(target, overwrite, build(spec, prepared, fit, premia, restrictions, sensitivity,
+                extras), results, run, List.of(spec),
                 List.of(prepared.inputs()));
     }
 
     /** The parameter table, standard errors under the estimates. */
     public static Table parameters(GmmFit fit) {
+        return parameters(fit, null);
+    }
+
+    /** The parameter table, with Windmeijer's corrected standard errors in a column when given. */
+    public static Table parameters(GmmFit fit, double[] windmeijer) {
         String level = String.format(Locale.ROOT, "%.0f%%", 100 * fit.confidenceLevel());
-        Table.Builder table = Table.builder("parameters", "Parameter estimates", "parameter", "estimate",
-                "std. error", "t-stat", "p-value", level + " low", level + " high").errorUnder("estimate", "std. error");
+        List<String> header = new ArrayList<>(List.of("parameter", "estimate", "std. error", "t-stat", "p-value",
+                level + " low", level + " high"));
+        if (windmeijer != null) {
+            header.add(3, "Windmeijer s.e.");
+        }
+        Table.Builder table = Table.builder("parameters", "Parameter estimates", header)
+                .errorUnder("estimate", "std. error");
         List<ConfidenceInterval> intervals = fit.confidenceIntervals();
         for (int i = 0; i < fit.parameters().size(); i++) {
             ParameterEstimate p = fit.parameters().get(i);
-            table.row(Cell.parameter(p.name()), Cell.number(p.estimate()), Cell.number(p.stdError()),
-                    Cell.fixed(p.tStat(), 2), Cell.fixed(p.pValue(), 4), Cell.number(intervals.get(i).lower()),
-                    Cell.number(intervals.get(i).upper()));
+            List<Cell> row = new ArrayList<>(List.of(Cell.parameter(p.name()), Cell.number(p.estimate()),
+                    Cell.number(p.stdError()), Cell.fixed(p.tStat(), 2), Cell.fixed(p.pValue(), 4),
+                    Cell.number(intervals.get(i).lower()), Cell.number(intervals.get(i).upper())));
+            if (windmeijer != null) {
+                row.add(3, Cell.number(windmeijer[i]));
+            }
+            table.row(row);
+        }
+        if (windmeijer != null) {
+            table.note("Windmeijer s.e.: corrected for the estimated weight of two-step GMM (Windmeijer 2005, "
+                    + "Journal of Econometrics 126); t-statistics, p-values and intervals use the usual standard errors.");
         }
         ChiSquareTest over = fit.overidentification();
         return table.note("Standard errors in parentheses; p-values two-sided against zero, normal approximation.")

@@ -97,6 +97,10 @@ public final class JsonResults {
         diagnostics.put("converged", d.converged());
         ArrayNode atBounds = diagnostics.putArray("parameters_at_bounds");
         d.parametersAtBounds().forEach(atBounds::add);
+        number(diagnostics, "smallest_singular_value_scaled_d", d.smallestSingularValue());
+        diagnostics.put("clean", d.clean());
+        ArrayNode identification = diagnostics.putArray("identification_problems");
+        d.identificationProblems().forEach(identification::add);
         ArrayNode warnings = root.putArray("warnings");
         fit.warnings().forEach(warnings::add);
         root.put("caution", Caution.TEXT);
@@ -137,6 +141,37 @@ public final class JsonResults {
             number(node, "estimate", premia.estimates()[k]);
             number(node, "std_error", premia.stdErrors()[k]);
         }
+    }
+
+    /**
+     * Adds Windmeijer's (2005) corrected standard errors: "std_error_windmeijer" on every parameter (null where
+     * the correction does not apply) and "windmeijer_correction" with the first-step estimate and bandwidth it
+     * used, or the reason it does not apply.
+     */
+    public static void addWindmeijer(ObjectNode results, GmmFit fit,
+            java.util.Optional<org.orthogon.gmm.WindmeijerCorrection.Result> correction) {
+        ArrayNode parameters = (ArrayNode) results.get("parameters");
+        ObjectNode node = results.putObject("windmeijer_correction");
+        for (int i = 0; i < parameters.size(); i++) {
+            ObjectNode parameter = (ObjectNode) parameters.get(i);
+            if (correction.isPresent()) {
+                number(parameter, "std_error_windmeijer", correction.get().stdErrors()[i]);
+            } else {
+                parameter.putNull("std_error_windmeijer");
+            }
+        }
+        if (correction.isEmpty()) {
+            node.put("applied", false);
+            node.put("reason", org.orthogon.gmm.WindmeijerCorrection.notApplicable(fit).orElse(""));
+            return;
+        }
+        node.put("applied", true);
+        ObjectNode first = node.putObject("first_step_estimates");
+        double[] theta = correction.get().firstStep();
+        for (int i = 0; i < theta.length; i++) {
+            number(first, fit.parameters().get(i).name(), theta[i]);
+        }
+        number(node, "bandwidth_held_fixed", correction.get().bandwidth());
     }
 
     /** Pretty-printed JSON text with a final newline. */

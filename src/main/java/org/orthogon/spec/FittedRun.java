@@ -6,6 +6,8 @@ import org.orthogon.gmm.RiskPremia;
 import org.orthogon.gmm.GmmEstimator;
 import org.orthogon.gmm.GmmFit;
 import org.orthogon.gmm.GmmOptions;
+import org.orthogon.gmm.IdentificationDiagnostics;
+import org.orthogon.gmm.ManyMoments;
 import org.orthogon.gmm.ParameterBounds;
 import java.util.List;
 
@@ -69,12 +71,20 @@ public record FittedRun(RunSpec spec, PreparedRun prepared, GmmFit fit) {
     /** Reads the data of {@code spec}, builds its moments and estimates them with its [estimation] choices. */
     public static FittedRun of(RunSpec spec) {
         PreparedRun prepared = ModelAssembler.prepare(spec);
-        return new FittedRun(spec, prepared, estimate(spec, prepared));
+        GmmFit fit = estimate(spec, prepared);
+        // The fit's many-moments warning uses the bandwidth actually selected; the preparation's is then redundant.
+        boolean fitWarns = fit.warnings().stream().anyMatch(ManyMoments::describes);
+        return new FittedRun(spec, fitWarns ? prepared.withoutWarning("many-moments") : prepared, fit);
     }
 
-    /** Estimates prepared moments with the spec's [estimation] choices. */
+    /**
+     * Estimates prepared moments with the spec's [estimation] choices, and assesses the identification of the
+     * estimate ({@link IdentificationDiagnostics}) with the economic ranges of the family
+     * ({@link ModelSpec#economicRanges()}).
+     */
     public static GmmFit estimate(RunSpec spec, PreparedRun prepared) {
-        return GmmEstimator.estimate(prepared.moments(), prepared.startValues(), options(spec, prepared));
+        GmmFit fit = GmmEstimator.estimate(prepared.moments(), prepared.startValues(), options(spec, prepared));
+        return IdentificationDiagnostics.assess(prepared.moments(), fit, spec.model().economicRanges());
     }
 
     /**

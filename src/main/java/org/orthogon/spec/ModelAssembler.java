@@ -10,6 +10,7 @@ import java.util.regex.Pattern;
 import org.orthogon.data.InputException;
 import org.orthogon.data.Period;
 import org.orthogon.data.Suggestions;
+import org.orthogon.gmm.ManyMoments;
 import org.orthogon.gmm.LinearRestrictions;
 import org.orthogon.longrun.LongRunOptions;
 import org.orthogon.moments.ObservationErrors;
@@ -93,17 +94,14 @@ public final class ModelAssembler {
                 observations, dates.get(0).frequency().id());
         List<String> labels = dates.subList(aligned.first(), aligned.last() + 1).stream().map(Period::label).toList();
         return new PreparedRun(moments, start, sample, data.notes(), data.inputs(),
-                errors.assetNames().subList(0, errors.pricedAssets()), labels, warnings(k, p, observations), bounds,
+                errors.assetNames().subList(0, errors.pricedAssets()), labels, warnings(k, p, observations, spec.estimation().longRunOptions()), bounds,
                 family.factorSample());
     }
 
-    private static List<Warning> warnings(int k, int p, int t) {
+    /** Warnings before any estimation: the many-moments rule of {@link ManyMoments} with the file's S, and K = P. */
+    private static List<Warning> warnings(int k, int p, int t, LongRunOptions longRun) {
         List<Warning> warnings = new ArrayList<>();
-        if (k > t / 10.0) {
-            warnings.add(new Warning("many-moments", String.format(Locale.ROOT, "K = %d moments against T = %d "
-                    + "observations (K > T/10): the efficient weight will be estimated imprecisely and the J test "
-                    + "over-rejects in samples this size; prefer fewer assets or instruments, or a one-step fit", k, t)));
-        }
+        ManyMoments.warning(k, t, longRun).ifPresent(w -> warnings.add(new Warning("many-moments", w)));
         if (k == p) {
             warnings.add(new Warning("exactly-identified", "the model is exactly identified (K = P): there will be "
                     + "no overidentifying restrictions to test"));

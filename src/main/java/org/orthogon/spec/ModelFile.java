@@ -157,7 +157,7 @@ public final class ModelFile {
         String title = root.has("title") ? string(null, root, "title") : fileStem();
         DataSpec dataSpec = parseData(data);
         ModelSpec modelSpec = parseModel(model);
-        EstimationSpec estimationSpec = parseEstimation(estimation);
+        EstimationSpec estimationSpec = parseEstimation(estimation, modelSpec);
         StabilitySpec stabilitySpec = stability == null ? StabilitySpec.defaults() : parseStability(stability);
         Map<String, Integer> keyLines = new LinkedHashMap<>();
         for (Map.Entry<String, List<String>> section : Map.of("data", DATA_KEYS, "model", MODEL_KEYS,
@@ -259,13 +259,25 @@ public final class ModelFile {
                 .collect(Collectors.joining(", "));
     }
 
-    private EstimationSpec parseEstimation(JsonNode estimation) {
+    /**
+     * The default long-run covariance when the file names no kernel, lags or bandwidth: the
+     * heteroskedasticity-consistent S for the Euler-equation families, whose one-period pricing errors are
+     * martingale differences under their null (docs/methods.md, "Many moments"), Bartlett with 4 lags for the
+     * others, whose unconditional null implies no such thing. A lag count or bandwidth without a kernel means
+     * Bartlett for every family.
+     */
+    static String defaultKernel(ModelSpec model, JsonNode estimation) {
+        boolean lagsGiven = estimation.has("lags") || estimation.has("bandwidth");
+        return model.martingaleDifferenceErrors() && !lagsGiven ? Kernel.NONE.id() : Kernel.BARTLETT.id();
+    }
+
+    private EstimationSpec parseEstimation(JsonNode estimation, ModelSpec model) {
         JsonNode node = estimation == null ? TomlMapper.builder().build().createObjectNode() : estimation;
         String methodId = choice("estimation", node, "method",
                 Arrays.stream(EstimationMethod.values()).map(EstimationMethod::id).toList(), "two-step");
         String weight = choice("estimation", node, "initial_weight", INITIAL_WEIGHTS, "identity");
         String kernelId = choice("estimation", node, "kernel",
-                Arrays.stream(Kernel.values()).map(Kernel::id).toList(), "bartlett");
+                Arrays.stream(Kernel.values()).map(Kernel::id).toList(), defaultKernel(model, node));
         Kernel kernel = Kernel.fromId(kernelId);
         if (node.has("bandwidth") && node.has("lags")) {
             throw error("estimation", "lags", "both bandwidth and lags are given",

@@ -45,6 +45,24 @@ public sealed interface ModelSpec permits PowerUtilitySpec, RecursiveUtilitySpec
         return Map.of();
     }
 
+    /**
+     * The economic ranges of the family's parameters; an estimate outside one is not a clean estimate
+     * ({@link org.orthogon.gmm.IdentificationDiagnostics}). None by default: factor prices take any sign.
+     */
+    default List<org.orthogon.gmm.IdentificationDiagnostics.Range> economicRanges() {
+        return List.of();
+    }
+
+    /**
+     * True when the family's moments are one-period pricing errors that its null makes martingale differences
+     * (Euler equations E_{t-1}[m_t R_t] = 1), so that S has no autocovariances under the null and the
+     * heteroskedasticity-consistent S is the default (docs/methods.md, "Many moments"). False by default: an
+     * unconditional restriction E[m R] = p does not rule out serial correlation.
+     */
+    default boolean martingaleDifferenceErrors() {
+        return false;
+    }
+
     /** Every instrument column the family reads from the [data] instruments file. */
     default List<String> instrumentsNeeded() {
         return common().instrumentColumns();

@@ -5,6 +5,7 @@ import java.util.Map;
 import org.orthogon.data.SeriesTable;
 import org.orthogon.moments.Payoff;
 import org.orthogon.moments.PowerUtilityErrors;
+import org.orthogon.gmm.IdentificationDiagnostics;
 
 /**
  * {@code family = "power-utility"}: the Euler equations of power (CRRA) utility,
@@ -35,6 +36,17 @@ public record PowerUtilitySpec(Consumption consumption, ModelCommon common) impl
     @Override
     public Map<String, double[]> defaultBounds() {
         return Consumption.discountFactorBounds();
+    }
+
+    @Override
+    public List<IdentificationDiagnostics.Range> economicRanges() {
+        return List.of(IdentificationDiagnostics.DISCOUNT_FACTOR, IdentificationDiagnostics.RISK_AVERSION);
+    }
+
+    /** One-period Euler equations: their errors are martingale differences under the model. */
+    @Override
+    public boolean martingaleDifferenceErrors() {
+        return true;
     }
 
     @Override

@@ -46,6 +46,12 @@ public record PreparedRun(MomentModel moments, double[] startValues, SampleInfo 
         return copy(bounds);
     }
 
+    /** The same preparation without the warnings of one code (a fit's own, more exact warning supersedes it). */
+    public PreparedRun withoutWarning(String code) {
+        return new PreparedRun(moments, startValues, sample, notes, inputs, assets, dates,
+                warnings.stream().filter(w -> !w.code().equals(code)).toList(), bounds, factorSample);
+    }
+
     private static Map<String, double[]> copy(Map<String, double[]> bounds) {
         Map<String, double[]> copy = new LinkedHashMap<>();
         bounds.forEach((name, range) -> copy.put(name, range.clone()));

@@ -8,6 +8,7 @@ import org.orthogon.data.ReturnTransforms;
 import org.orthogon.data.SeriesTable;
 import org.orthogon.moments.Payoff;
 import org.orthogon.moments.RecursiveUtilityErrors;
+import org.orthogon.gmm.IdentificationDiagnostics;
 
 /**
  * {@code family = "recursive-utility"}: the Euler equations of Epstein-Zin utility priced with a
@@ -48,6 +49,17 @@ public record RecursiveUtilitySpec(Consumption consumption, String wealthColumn,
     @Override
     public Map<String, double[]> defaultBounds() {
         return Consumption.discountFactorBounds();
+    }
+
+    @Override
+    public List<IdentificationDiagnostics.Range> economicRanges() {
+        return List.of(IdentificationDiagnostics.DISCOUNT_FACTOR, IdentificationDiagnostics.RISK_AVERSION, IdentificationDiagnostics.ELASTICITY_OF_SUBSTITUTION);
+    }
+
+    /** One-period Euler equations: their errors are martingale differences under the model. */
+    @Override
+    public boolean martingaleDifferenceErrors() {
+        return true;
     }
 
     @Override

@@ -9,6 +9,8 @@ import java.util.Set;
 import org.orthogon.data.Frequency;
 import org.orthogon.data.InputException;
 import org.orthogon.data.Period;
+import org.orthogon.gmm.ManyMoments;
+import org.orthogon.longrun.LongRunOptions;
 
 /**
  * Sample-period choices for `stability` ([stability] section; the command line may replace them), and
@@ -168,7 +170,8 @@ public record StabilitySpec(List<String> splits, double trimming, Optional<Integ
             }
             windowCount = (t - length) / step + 1;
         }
-        return new Plan(indices, candidates, windowCount, sizeWarnings(k, t, indices, supWald));
+        return new Plan(indices, candidates, windowCount, sizeWarnings(k, t, indices, supWald,
+                spec.estimation().longRunOptions()));
     }
 
     private List<Integer> splitIndices(RunSpec spec, PreparedRun prepared) {
@@ -196,7 +199,12 @@ public record StabilitySpec(List<String> splits, double trimming, Optional<Integ
         return indices;
     }
 
-    private List<Warning> sizeWarnings(int k, int t, List<Integer> splitIndices, boolean supWald) {
+    /**
+     * The many-moments warning ({@link ManyMoments}) judged at the shortest subsample or window, where K² v / T
+     * is largest, with the model file's long-run choices.
+     */
+    private List<Warning> sizeWarnings(int k, int t, List<Integer> splitIndices, boolean supWald,
+            LongRunOptions longRun) {
         List<Warning> warnings = new ArrayList<>();
         int smallest = supWald ? (int) Math.ceil(trimming * t) : t;
         List<Integer> bounds = new ArrayList<>(List.of(0));
@@ -208,12 +216,12 @@ public record StabilitySpec(List<String> splits, double trimming, Optional<Integ
         if (window.isPresent()) {
             smallest = Math.min(smallest, window.get());
         }
-        if (k > smallest / 10.0) {
-            warnings.add(new Warning("many-moments-subsample", String.format(Locale.ROOT, "K = %d moments against "
-                    + "subsamples as short as %d observations: efficient-weight subsample fits make the Wald and sup-Wald "
-                    + "statistics far larger than their limits suggest (over-rejection); read the fixed-weight rows, and "
-                    + "treat the p-values as rough", k, smallest)));
-        }
+        int shortest = smallest;
+        ManyMoments.warning(k, shortest, longRun).ifPresent(w -> warnings.add(new Warning("many-moments-subsample",
+                String.format(Locale.ROOT, "subsamples as short as %d observations: %s; efficient-weight subsample "
+                        + "fits make the Wald and sup-Wald statistics far larger than their limits suggest "
+                        + "(over-rejection), so read the fixed-weight rows and treat the p-values as rough", shortest,
+                        w))));
         return warnings;
     }
 

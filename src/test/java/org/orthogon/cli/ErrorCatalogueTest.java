@@ -320,6 +320,14 @@ class ErrorCatalogueTest {
                 "S1T1", 0, "not a finite number")), "--replications", "10", "--alternative", "S1T1 = abc"));
         cases.add(withArgs(onVerb("montecarlo", refused("montecarlo-alternative-syntax", POWER, cli -> { },
                 "--alternative", 0, "NAME = VALUE")), "--replications", "10", "--alternative", "S1T1 0.01"));
+        cases.add(withArgs(refused("s-range-unknown-parameter", POWER, cli -> { }, "--s-range", 0, "gama",
+                "did you mean \"gamma\""), "--s-sets", "--s-range", "gama=0:40"));
+        cases.add(withArgs(refused("s-range-malformed", POWER, cli -> { }, "--s-range", 0, "NAME=LOW:HIGH"),
+                "--s-sets", "--s-range", "gamma=40:0"));
+        cases.add(withArgs(refused("s-range-outside-bounds", POWER, cli -> { }, "--s-range", 0, "outside the bounds"),
+                "--s-sets", "--s-range", "beta=-2:-1"));
+        cases.add(withArgs(refused("s-points-too-few", POWER, cli -> { }, "--s-points", 0, "at least 11"),
+                "--s-sets", "--s-points", "5"));
         return cases;
     }
 

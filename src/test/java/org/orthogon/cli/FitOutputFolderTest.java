@@ -49,7 +49,7 @@ class FitOutputFolderTest {
         assertThat(files(out)).containsExactlyElementsOf(THREE_FACTOR_FILES);
         assertThat(Files.readString(out.resolve("results.json"))).isEqualTo(Files.readString(json));
         assertThat(Files.readString(out.resolve("tables/parameters.csv")))
-                .startsWith("parameter,estimate,std. error,t-stat,p-value,95% low,95% high\nb_MKT,");
+                .startsWith("parameter,estimate,std. error,Windmeijer s.e.,t-stat,p-value,95% low,95% high\nb_MKT,");
         assertThat(Files.readString(out.resolve("tables/parameters.tex"))).contains("\\toprule")
                 .contains("$b_{\\mathrm{TIDE}}$").contains("\\label{tab:lumen-three-factor-parameters}");
         Document html = Jsoup.parse(out.resolve("report.html").toFile());

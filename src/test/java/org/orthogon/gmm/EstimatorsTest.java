@@ -173,8 +173,8 @@ class EstimatorsTest {
         assertThat(d.weightUpdates()).isEqualTo(1);
         assertThat(d.conditionS()).isGreaterThan(1.0).isFinite();
         assertThat(d.conditionDWD()).isGreaterThan(1.0).isFinite();
-        // K = 10 > T/10 = 6: the warning names the fix.
-        assertThat(fit.warnings()).anyMatch(w -> w.contains("K > T/10") && w.contains("fixed (one-step) weight"));
+        // K² v / T = 100/60 > 1.5 with HC (v = 1): the many-moments warning names the fix.
+        assertThat(fit.warnings()).anyMatch(w -> w.contains("K² v / T = 1.67") && w.contains("fixed (one-step) weight"));
     }
 
     /** The base model with its first parameter split into two identical copies (θ_0 + θ_1 enters). */

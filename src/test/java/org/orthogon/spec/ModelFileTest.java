@@ -59,6 +59,22 @@ class ModelFileTest {
     }
 
     @Test
+    void defaultLongRunCovarianceDependsOnTheFamily() throws IOException {
+        // Euler-equation families: HC (their one-period errors are martingale differences, docs/methods.md);
+        // others Bartlett with 4 lags; lags without a kernel mean Bartlett.
+        String power = "[data]\nreturns = \"r.csv\"\nmacro = \"c.csv\"\n\n[model]\nfamily = \"power-utility\"\n"
+                + "consumption_column = \"c\"\nstart_values = { beta = 0.99, gamma = 2.0 }\n";
+        RunSpec euler = ModelFile.read(write(power));
+        assertThat(euler.estimation().kernel()).isEqualTo(Kernel.NONE);
+        RunSpec withLags = ModelFile.read(write(power + "\n[estimation]\nlags = 2\n"));
+        assertThat(withLags.estimation().kernel()).isEqualTo(Kernel.BARTLETT);
+        assertThat(withLags.estimation().bandwidth()).isEqualTo(new BandwidthRule.Lags(2));
+        RunSpec linear = ModelFile.read(write(MINIMAL));
+        assertThat(linear.estimation().kernel()).isEqualTo(Kernel.BARTLETT);
+        assertThat(linear.estimation().bandwidth()).isEqualTo(new BandwidthRule.Lags(4));
+    }
+
+    @Test
     void unknownKeyNamesItsLineAndTheClosestKnownKey() throws IOException {
         InputException e = refusal(MINIMAL + "\n[estimation]\nmethd = \"two-step\"\n");
         assertThat(e.line()).isEqualTo(9);
