@@ -196,6 +196,26 @@ public final class Stability {
                 SupWaldDistribution.simulate(parameters, trimming, seed, draws, threads), sequence, failed);
     }
 
+    /**
+     * The sup-Wald statistic alone, on the calling thread, without its null simulation: the largest
+     * Andrews-Fair Wald statistic over the trimmed candidate dates, dates whose sides cannot be fitted left
+     * out as in {@link #supWald}; NaN when no date can be fitted. For bootstrap replications, which run
+     * in parallel among themselves.
+     */
+    public static double supWaldStatistic(MomentModel model, double[] start, GmmOptions options, double trimming) {
+        int t = model.observations();
+        Subsamples subsamples = Subsamples.of(model);
+        int tested = testedParameters(model);
+        double best = Double.NaN;
+        for (int index : candidateBreaks(t, trimming)) {
+            double statistic = waldAtBreak(subsamples, start, options, index, t, tested);
+            if (!Double.isNaN(statistic) && !(statistic <= best)) {
+                best = statistic;
+            }
+        }
+        return best;
+    }
+
     /** The Andrews-Fair Wald statistic for a break at {@code index}, or NaN when a side cannot be fitted. */
     private static double waldAtBreak(Subsamples subsamples, double[] start, GmmOptions options, int index, int t,
             int tested) {

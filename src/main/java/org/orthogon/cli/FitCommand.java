@@ -6,6 +6,9 @@ import java.time.Instant;
 import java.util.List;
 import java.util.concurrent.Callable;
 import org.orthogon.analysis.SensitivityGrid;
+import org.orthogon.bootstrap.BootstrapPlan;
+import org.orthogon.bootstrap.FitBootstrap;
+import org.orthogon.report.BootstrapReport;
 import org.orthogon.gmm.GmmFit;
 import org.orthogon.gmm.GmmOptions;
 import org.orthogon.gmm.WindmeijerCorrection;
@@ -53,6 +56,13 @@ final class FitCommand implements Callable<Integer> {
     boolean sensitivity;
 
     @Mixin
+    BootstrapOptions bootstrap;
+
+    @Option(names = "--seed", paramLabel = "S", description = "seed of the bootstrap's random draws (default "
+            + org.orthogon.bootstrap.BootstrapPlan.DEFAULT_SEED + ")")
+    Long seed;
+
+    @Mixin
     RobustSetArguments robustSets;
 
     @picocli.CommandLine.Spec
@@ -64,6 +74,7 @@ final class FitCommand implements Callable<Integer> {
         String folderName = ResultOptions.stem(modelFile);
         output.checkEarly(folderName);
         int threadCount = threads.count();
+        bootstrap.check();
         RunSpec spec = overrides.apply(ModelFile.read(modelFile));
         RobustSetOptions robustOptions = robustSets.options(spec.estimation().confidenceLevel());
         if (robustOptions != null && spec.model() instanceof org.orthogon.spec.BetaPricingSpec) {
@@ -86,6 +97,14 @@ final class FitCommand implements Callable<Integer> {
                         choice -> FittedRun.options(spec.withEstimation(spec.estimation().withLongRun(choice)), prepared),
                         threadCount)
                 : List.of();
+        BootstrapPlan plan = bootstrap.plan(prepared.sample().observations(), seed);
+        FitBootstrap.Result resampled = null;
+        if (plan != null) {
+            try (Progress progress = Progress.start("bootstrap", plan.replications())) {
+                resampled = FitBootstrap.run(prepared.moments(), fit, gmmOptions, plan, threadCount, progress);
+            }
+        }
+        FitBootstrap.Result bootstrapResult = resampled;
         List<FittedRun.RestrictionTest> restrictions = run.restrictionTests();
         ObjectNode results = JsonResults.fit(spec, prepared.sample(), fit);
         JsonResults.addInputWarnings(results, prepared.warnings());
@@ -99,6 +118,9 @@ final class FitCommand implements Callable<Integer> {
         if (sensitivity) {
             SensitivityReport.addTo(results, grid, FitReport.mainParameters(spec, prepared.moments().parameterNames()));
         }
+        if (bootstrapResult != null) {
+            BootstrapReport.addTo(results, bootstrapResult);
+        }
         var premia = run.riskPremia();
         premia.ifPresent(p -> JsonResults.addRiskPremia(results, p));
         if (output.json != null) {
@@ -107,9 +129,10 @@ final class FitCommand implements Callable<Integer> {
         Path folder = null;
         if (output.requested()) {
             folder = FitReport.writeFolder(output.target(folderName), output.overwrite, results, spec, prepared, fit,
-                    premia.orElse(null), restrictions, grid, new FitReport.Extras(windmeijer.orElse(null), robust),
+                    premia.orElse(null), restrictions, grid,
+                    new FitReport.Extras(windmeijer.orElse(null), robust, bootstrapResult),
                     new Manifest.Run("fit", commandSpec.commandLine().getParseResult().originalArgs(),
-                            Version.current(), started, Manifest.seeds(fit)));
+                            Version.current(), started, seeds(fit, bootstrapResult)));
         }
         if (!output.quiet) {
             PrintWriter out = commandSpec.commandLine().getOut();
@@ -123,11 +146,23 @@ final class FitCommand implements Callable<Integer> {
                 out.print("\n" + SensitivityReport.render(grid, FitReport.mainParameters(spec,
                         prepared.moments().parameterNames())));
             }
+            if (bootstrapResult != null) {
+                out.print(BootstrapReport.render(bootstrapResult));
+            }
             if (folder != null) {
                 out.println("\nReport folder: " + CheckReport.display(folder));
             }
             out.flush();
         }
         return Main.EXIT_OK;
+    }
+
+    /** The HJ seed of the fit and, with --bootstrap, the bootstrap's seed. */
+    private static java.util.Map<String, Long> seeds(GmmFit fit, FitBootstrap.Result bootstrap) {
+        java.util.Map<String, Long> seeds = new java.util.TreeMap<>(Manifest.seeds(fit));
+        if (bootstrap != null) {
+            seeds.put("bootstrap", bootstrap.seed());
+        }
+        return seeds;
     }
 }

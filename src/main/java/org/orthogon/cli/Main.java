@@ -30,6 +30,7 @@ public final class Main {
         verbs.put("compare", CompareCommand.class);
         verbs.put("two-pass", TwoPassCommand.class);
         verbs.put("stability", StabilityCommand.class);
+        verbs.put("montecarlo", MonteCarloCommand.class);
         verbs.put("check", CheckCommand.class);
         verbs.put("simulate", SimulateCommand.class);
         verbs.put("help", CommandLine.HelpCommand.class);

@@ -6,12 +6,11 @@ import java.util.Map;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
-import java.util.function.IntConsumer;
-import me.tongfei.progressbar.ProgressBar;
-import me.tongfei.progressbar.ProgressBarBuilder;
-import me.tongfei.progressbar.ProgressBarStyle;
 import org.orthogon.analysis.Stability;
 import org.orthogon.analysis.SupWaldDistribution;
+import org.orthogon.bootstrap.BootstrapPlan;
+import org.orthogon.bootstrap.SupWaldBootstrap;
+import org.orthogon.data.InputException;
 import org.orthogon.gmm.EstimationMethod;
 import org.orthogon.gmm.GmmOptions;
 import org.orthogon.gmm.InitialWeight;
@@ -67,7 +66,8 @@ final class StabilityCommand implements Callable<Integer> {
     boolean expanding;
 
     @Option(names = "--seed", paramLabel = "N", description = "seed of the sup-Wald null simulation (default "
-            + SupWaldDistribution.DEFAULT_SEED + ")")
+            + SupWaldDistribution.DEFAULT_SEED + ") and of the --bootstrap draws (default "
+            + BootstrapPlan.DEFAULT_SEED + ")")
     Long seed;
 
     @Mixin
@@ -75,6 +75,9 @@ final class StabilityCommand implements Callable<Integer> {
 
     @Mixin
     ThreadsOption threads;
+
+    @Mixin
+    BootstrapOptions bootstrap;
 
     @picocli.CommandLine.Spec
     picocli.CommandLine.Model.CommandSpec commandSpec;
@@ -85,12 +88,18 @@ final class StabilityCommand implements Callable<Integer> {
         String folderName = ResultOptions.stem(modelFile) + "-stability";
         output.checkEarly(folderName);
         int threadCount = threads.count();
+        bootstrap.check();
+        if (bootstrap.requested() && noSupWald) {
+            throw InputException.general().problem("--bootstrap was given with --no-sup-wald",
+                    "drop --no-sup-wald: the stability bootstrap resamples the sup-Wald statistic");
+        }
         RunSpec spec = withCommandLine(overrides.apply(ModelFile.read(modelFile)));
         StabilitySpec choices = spec.stability();
         PreparedRun prepared = ModelAssembler.prepare(spec);
         StabilitySpec.Plan plan = choices.plan(spec, prepared, !noSupWald);
         List<Integer> splitIndices = plan.splitIndices();
         List<String> warnings = new ArrayList<>();
+        BootstrapPlan bootstrapPlan = bootstrap.plan(prepared.sample().observations(), seed);
 
         GmmOptions efficient = FittedRun.options(spec, prepared);
         List<GmmOptions> variants = new ArrayList<>(List.of(efficient));
@@ -115,6 +124,14 @@ final class StabilityCommand implements Callable<Integer> {
                             SupWaldDistribution.DEFAULT_DRAWS, threadCount, progress);
                 }
             }
+            SupWaldBootstrap.Result supBootstrap = null;
+            if (sup != null && bootstrapPlan != null) {
+                try (Progress progress = Progress.start("sup-Wald bootstrap, " + options.method().id(),
+                        bootstrapPlan.replications())) {
+                    supBootstrap = SupWaldBootstrap.run(prepared.moments(), prepared.startValues(), options,
+                            choices.trimming(), sup.statistic(), bootstrapPlan, threadCount, progress);
+                }
+            }
             List<Stability.PeriodFit> rolling = List.of();
             if (choices.window().isPresent()) {
                 try (Progress progress = Progress.start("windows, " + options.method().id(), plan.windowCount())) {
@@ -123,7 +140,7 @@ final class StabilityCommand implements Callable<Integer> {
                 }
             }
             results.add(new StabilityReport.Variant(label, periods,
-                    periods.isEmpty() ? null : Stability.equalityTest(periods, tested), sup, rolling));
+                    periods.isEmpty() ? null : Stability.equalityTest(periods, tested), sup, rolling, supBootstrap));
         }
         plan.warnings().forEach(warning -> warnings.add(warning.text()));
         ObjectNode json = StabilityReport.json(spec, prepared.sample(), results);
@@ -136,7 +153,8 @@ final class StabilityCommand implements Callable<Integer> {
             folder = ReportFiles.publish(output.target(folderName), output.overwrite,
                     StabilityDocument.build(spec, prepared.sample(), results, warnings), json,
                     new Manifest.Run("stability", commandSpec.commandLine().getParseResult().originalArgs(),
-                            Version.current(), started, seeds(results, noSupWald ? null : simulationSeed)),
+                            Version.current(), started, seeds(results, noSupWald ? null : simulationSeed,
+                                    bootstrapPlan)),
                     List.of(spec), List.of(prepared.inputs()));
         }
         if (!output.quiet) {
@@ -150,7 +168,8 @@ final class StabilityCommand implements Callable<Integer> {
     }
 
     /** The sup-Wald simulation's seed (when it ran) and the HJ seed of every period and window fit. */
-    private static Map<String, Long> seeds(List<StabilityReport.Variant> variants, Long supWald) {
+    private static Map<String, Long> seeds(List<StabilityReport.Variant> variants, Long supWald,
+            BootstrapPlan bootstrap) {
         List<org.orthogon.gmm.GmmFit> fits = new ArrayList<>();
         for (StabilityReport.Variant variant : variants) {
             variant.periods().forEach(period -> fits.add(period.fit()));
@@ -160,41 +179,13 @@ final class StabilityCommand implements Callable<Integer> {
         if (supWald != null) {
             seeds.put("sup_wald", supWald);
         }
+        if (bootstrap != null) {
+            seeds.put("bootstrap", bootstrap.seed());
+        }
         return seeds;
     }
 
     private RunSpec withCommandLine(RunSpec spec) {
         return spec.withStability(spec.stability().withCommandLine(splits, trimming, window, step, expanding));
-    }
-
-    /** A progress bar on standard error, only when a person is watching a terminal. */
-    private static final class Progress implements IntConsumer, AutoCloseable {
-        private final ProgressBar bar;
-
-        private Progress(ProgressBar bar) {
-            this.bar = bar;
-        }
-
-        static Progress start(String task, int total) {
-            if (System.console() == null || total < 20) {
-                return new Progress(null);
-            }
-            return new Progress(new ProgressBarBuilder().setTaskName(task).setInitialMax(total)
-                    .setStyle(ProgressBarStyle.ASCII).continuousUpdate().build());
-        }
-
-        @Override
-        public void accept(int ignored) {
-            if (bar != null) {
-                bar.step();
-            }
-        }
-
-        @Override
-        public void close() {
-            if (bar != null) {
-                bar.close();
-            }
-        }
     }
 }

@@ -9,10 +9,10 @@ import org.orthogon.moments.MomentModel;
  * {@link MomentModel#contributions(double[], DMatrixRMaj)} and the per-row Jacobians are not passed
  * on, so a view that changes θ stays right through the interface's defaults.
  */
-abstract class ForwardingMomentModel implements MomentModel {
+public abstract class ForwardingMomentModel implements MomentModel {
     protected final MomentModel base;
 
-    ForwardingMomentModel(MomentModel base) {
+    protected ForwardingMomentModel(MomentModel base) {
         this.base = base;
     }
 

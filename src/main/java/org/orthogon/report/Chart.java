@@ -113,6 +113,18 @@ public sealed interface Chart {
         }
     }
 
+    /**
+     * The distribution of simulated draws of a statistic as a histogram of counts, with a vertical line at
+     * one value (e.g. the bootstrap replications of J with the sample's J marked).
+     */
+    record Histogram(String id, String title, String xLabel, String yLabel, List<Double> draws, double marker,
+            String markerLabel) implements Chart {
+        public Histogram {
+            checkId(id);
+            draws = List.copyOf(draws);
+        }
+    }
+
     /** A named line of (x, y) points. */
     record Curve(String name, List<Point> points) {
         public Curve {

@@ -32,12 +32,18 @@ public final class FitReport {
 
     /**
      * What a fit may add to its report beyond the estimates, each null when absent: Windmeijer's corrected
-     * standard errors, the weak-identification-robust sets.
+     * standard errors, the weak-identification-robust sets, the recentred block bootstrap.
      */
     public record Extras(org.orthogon.gmm.WindmeijerCorrection.Result windmeijer,
-            org.orthogon.robust.RobustSets.Analysis robust) {
+            org.orthogon.robust.RobustSets.Analysis robust, org.orthogon.bootstrap.FitBootstrap.Result bootstrap) {
         /** Nothing extra. */
-        public static final Extras NONE = new Extras(null, null);
+        public static final Extras NONE = new Extras(null, null, null);
+
+        /** Windmeijer's standard errors and the robust sets, without a bootstrap. */
+        public Extras(org.orthogon.gmm.WindmeijerCorrection.Result windmeijer,
+                org.orthogon.robust.RobustSets.Analysis robust) {
+            this(windmeijer, robust, null);
+        }
     }
 
     /**
@@ -92,6 +98,9 @@ public final class FitReport {
         }
         if (extras.robust() != null) {
             RobustSetsReport.addSection(report, extras.robust());
+        }
+        if (extras.bootstrap() != null) {
+            BootstrapReport.addSection(report, extras.bootstrap());
         }
         if (!prepared.notes().isEmpty()) {
             report.section("Data preparation");

@@ -39,6 +39,9 @@ public final class StabilityDocument {
                         sup.breakDate(), ConsoleReport.fixed(sup.pValue(), 4), ConsoleReport.fixed(d.criticalValue(0.10), 2),
                         ConsoleReport.fixed(d.criticalValue(0.05), 2), ConsoleReport.fixed(d.criticalValue(0.01), 2),
                         d.parameters(), 100 * sup.trimming(), d.seed(), d.draws()));
+                if (variant.supWaldBootstrap() != null) {
+                    report.paragraph("Sup-Wald " + StabilityReport.bootstrapLine(variant.supWaldBootstrap()) + ".");
+                }
                 report.chart(new Chart.Sequence("sup-wald" + suffix, "Wald statistic at each candidate break date",
                         "break date", "Wald statistic", sup.sequence().stream().map(Stability.BreakPoint::date).toList(),
                         sup.sequence().stream().map(Stability.BreakPoint::statistic).toList(), d.criticalValue(0.05),

@@ -6,6 +6,7 @@ import java.util.Locale;
 import org.orthogon.analysis.Stability;
 import org.orthogon.analysis.Stability.PeriodFit;
 import org.orthogon.analysis.Stability.SupWald;
+import org.orthogon.bootstrap.SupWaldBootstrap;
 import org.orthogon.gmm.ChiSquareTest;
 import org.orthogon.gmm.GmmFit;
 import org.orthogon.gmm.ParameterEstimate;
@@ -29,13 +30,29 @@ public final class StabilityReport {
      * @param equality the equality test across those periods (null without splits)
      * @param supWald  the unknown-break test (null when not run)
      * @param rolling  rolling or expanding window fits (empty when not run)
+     * @param supWaldBootstrap the bootstrap critical values and p-value of sup-Wald (null without --bootstrap)
      */
     public record Variant(String label, List<PeriodFit> periods, ChiSquareTest equality, SupWald supWald,
-            List<PeriodFit> rolling) {
+            List<PeriodFit> rolling, SupWaldBootstrap.Result supWaldBootstrap) {
         public Variant {
             periods = List.copyOf(periods);
             rolling = List.copyOf(rolling);
         }
+
+        /** A variant without a bootstrap of sup-Wald. */
+        public Variant(String label, List<PeriodFit> periods, ChiSquareTest equality, SupWald supWald,
+                List<PeriodFit> rolling) {
+            this(label, periods, equality, supWald, rolling, null);
+        }
+    }
+
+    /** The line of the sup-Wald bootstrap, for the console and the report. */
+    static String bootstrapLine(SupWaldBootstrap.Result b) {
+        return String.format(Locale.ROOT, "bootstrap (recentred %s blocks of %d, %s; %d replications, %d failed; "
+                + "seed %d): critical values 10%% %s, 5%% %s, 1%% %s, p-value %s", b.scheme().id(), b.blockLength(),
+                b.automaticBlockLength() ? "Politis-White rule" : "given", b.replications(), b.failedReplications(),
+                b.seed(), ConsoleReport.fixed(b.critical10(), 2), ConsoleReport.fixed(b.critical05(), 2),
+                ConsoleReport.fixed(b.critical01(), 2), ConsoleReport.fixed(b.pValue(), 4));
     }
 
     public static String render(RunSpec spec, SampleInfo sample, List<Variant> variants, List<String> warnings) {
@@ -61,6 +78,9 @@ public final class StabilityReport {
                         + "Andrews 1993 for %d parameters; seed %d, %d draws)%n",
                         ConsoleReport.fixed(d.criticalValue(0.10), 2), ConsoleReport.fixed(d.criticalValue(0.05), 2),
                         ConsoleReport.fixed(d.criticalValue(0.01), 2), d.parameters(), d.seed(), d.draws()));
+                if (variant.supWaldBootstrap() != null) {
+                    out.append("    ").append(bootstrapLine(variant.supWaldBootstrap())).append('\n');
+                }
                 if (!sup.failedDates().isEmpty()) {
                     out.append("    ").append(sup.failedDates().size())
                             .append(" candidate dates could not be fitted on both sides and were left out\n");
@@ -179,6 +199,22 @@ public final class StabilityReport {
             node.put("p_value_method", "simulated limit of Andrews (1993)");
             node.put("seed", sup.distribution().seed());
             node.put("draws", sup.distribution().draws());
+            SupWaldBootstrap.Result b = variant.supWaldBootstrap();
+            if (b != null) {
+                ObjectNode boot = node.putObject("bootstrap");
+                boot.put("method", "recentred-block");
+                boot.put("replications", b.replications());
+                boot.put("failed_replications", b.failedReplications());
+                boot.put("block_length", b.blockLength());
+                boot.put("block_length_rule", b.automaticBlockLength() ? "politis-white" : "given");
+                boot.put("block_scheme", b.scheme().id());
+                boot.put("seed", b.seed());
+                ObjectNode values = boot.putObject("critical_values");
+                JsonResults.number(values, "0.10", b.critical10());
+                JsonResults.number(values, "0.05", b.critical05());
+                JsonResults.number(values, "0.01", b.critical01());
+                JsonResults.number(boot, "p_value", b.pValue());
+            }
             ArrayNode sequence = node.putArray("sequence");
             for (Stability.BreakPoint point : sup.sequence()) {
                 ObjectNode entry = sequence.addObject();

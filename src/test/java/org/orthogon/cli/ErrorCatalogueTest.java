@@ -38,7 +38,7 @@ class ErrorCatalogueTest {
     Path root;
 
     /**
-     * One catalogue entry. {@code verb} is the command run: "fit", "stability" and "two-pass" get the model file and
+     * One catalogue entry. {@code verb} is the command run: "fit", "stability", "two-pass" and "montecarlo" get the model file and
      * --json before the extra arguments; any other verb gets only the extra arguments.
      */
     record Case(String id, String verb, String model, Setup setup, List<String> extraArgs, int exit, String file,
@@ -322,6 +322,28 @@ class ErrorCatalogueTest {
                 "--kernel", "gaussian"));
         cases.add(withArgs(refused("threads-option-below-one", POWER, cli -> { }, "--threads", 0, "below one"),
                 "--threads", "0"));
+        // Bootstrap and Monte Carlo options
+        cases.add(withArgs(refused("bootstrap-replications-out-of-range", POWER, cli -> { }, "--bootstrap", 0,
+                "at least 19"), "--bootstrap", "5"));
+        cases.add(withArgs(refused("block-length-below-one", POWER, cli -> { }, "--block-length", 0, "below one"),
+                "--bootstrap", "99", "--block-length", "0"));
+        cases.add(withArgs(refused("block-length-too-long", POWER, cli -> { }, "--block-length", 0, "at most 126"),
+                "--bootstrap", "99", "--block-length", "200"));
+        cases.add(withArgs(refused("block-scheme-unknown", POWER, cli -> { }, "--block-scheme", 0, "moving, circular"),
+                "--bootstrap", "99", "--block-scheme", "stationary"));
+        cases.add(withArgs(refused("block-option-without-bootstrap", POWER, cli -> { }, "--block-length", 0,
+                "--bootstrap B"), "--block-length", "4"));
+        cases.add(withArgs(onVerb("stability", refused("stability-bootstrap-without-sup-wald", POWER, cli -> { },
+                "--no-sup-wald", 0, "drop --no-sup-wald")), "--bootstrap", "99", "--no-sup-wald"));
+        cases.add(withArgs(onVerb("montecarlo", refused("montecarlo-replications-out-of-range", POWER, cli -> { },
+                "--replications", 0, "at least 10")), "--replications", "5"));
+        cases.add(withArgs(onVerb("montecarlo", refused("montecarlo-alternative-unknown-name", POWER, cli -> { },
+                "\"S9T9\"", 0, "neither a moment nor a parameter")), "--replications", "10", "--alternative",
+                "S9T9 = 0.01"));
+        cases.add(withArgs(onVerb("montecarlo", refused("montecarlo-alternative-not-a-number", POWER, cli -> { },
+                "S1T1", 0, "not a finite number")), "--replications", "10", "--alternative", "S1T1 = abc"));
+        cases.add(withArgs(onVerb("montecarlo", refused("montecarlo-alternative-syntax", POWER, cli -> { },
+                "--alternative", 0, "NAME = VALUE")), "--replications", "10", "--alternative", "S1T1 0.01"));
         cases.add(withArgs(refused("s-range-unknown-parameter", POWER, cli -> { }, "--s-range", 0, "gama",
                 "did you mean \"gamma\""), "--s-sets", "--s-range", "gama=0:40"));
         cases.add(withArgs(refused("s-range-malformed", POWER, cli -> { }, "--s-range", 0, "NAME=LOW:HIGH"),
@@ -344,7 +366,7 @@ class ErrorCatalogueTest {
         c.setup().apply(cli);
         Path json = caseRoot.resolve("results.json");
         List<String> args = new ArrayList<>(List.of(c.verb()));
-        if (List.of("fit", "stability", "two-pass").contains(c.verb())) {
+        if (List.of("fit", "stability", "two-pass", "montecarlo").contains(c.verb())) {
             args.addAll(List.of(cli.models.resolve(c.model()).normalize().toString(), "--json", json.toString()));
         }
         c.extraArgs().forEach(arg -> args.add(arg.replace("{root}", caseRoot.toString())));
