@@ -91,7 +91,7 @@ final class FitCommand implements Callable<Integer> {
         Optional<WindmeijerCorrection.Result> windmeijer = WindmeijerCorrection.of(prepared.moments(),
                 prepared.startValues(), gmmOptions, fit);
         RobustSets.Analysis robust = robustOptions == null ? null : RobustSets.compute(prepared.moments(), fit,
-                gmmOptions.longRun(), gmmOptions.smallSample(), gmmOptions.bounds(), robustOptions);
+                gmmOptions.longRun(), gmmOptions.smallSample(), gmmOptions.bounds(), robustOptions, threadCount);
         List<SensitivityGrid.SensitivityRow> grid = sensitivity
                 ? SensitivityGrid.run(prepared.moments(), prepared.startValues(), fit, spec.estimation().centered(),
                         choice -> FittedRun.options(spec.withEstimation(spec.estimation().withLongRun(choice)), prepared),

@@ -6,6 +6,7 @@ import java.util.Locale;
 import java.util.Optional;
 import java.util.function.BiFunction;
 import org.apache.commons.math3.distribution.ChiSquaredDistribution;
+import org.orthogon.analysis.ParallelRunner;
 import org.orthogon.gmm.GmmFit;
 import org.orthogon.gmm.ParameterBounds;
 import org.orthogon.longrun.LongRunOptions;
@@ -137,6 +138,17 @@ public final class RobustSets {
      */
     public static Analysis compute(MomentModel model, GmmFit fit, LongRunOptions longRun, boolean smallSample,
             ParameterBounds bounds, RobustSetOptions options) {
+        return compute(model, fit, longRun, smallSample, bounds, options, 1);
+    }
+
+    /**
+     * As {@link #compute(MomentModel, GmmFit, LongRunOptions, boolean, ParameterBounds, RobustSetOptions)}, the
+     * parameters' profiles and the rows of the joint grid shared among {@code threads} threads. Each profile's
+     * warm-started chain of searches runs on one thread in its fixed order, so the result is the same for
+     * every thread count.
+     */
+    public static Analysis compute(MomentModel model, GmmFit fit, LongRunOptions longRun, boolean smallSample,
+            ParameterBounds bounds, RobustSetOptions options, int threads) {
         List<String> names = model.parameterNames();
         for (String name : options.ranges().keySet()) {
             if (!names.contains(name)) {
@@ -153,32 +165,32 @@ public final class RobustSets {
         double kCritical = quantile(1, options.level());
         double jointS = quantile(k, options.level());
         double jointK = quantile(p, options.level());
-        List<RobustSet> sets = new ArrayList<>();
-        List<Profile> profiles = new ArrayList<>();
-        double minimumS = Double.POSITIVE_INFINITY;
-        for (int i = 0; i < p; i++) {
+        List<ParameterSets> perParameter = ParallelRunner.map(p, threads, i -> {
             double[] range = range(names.get(i), i, estimate, scales, box, options);
             ProfileMinimizer minimizer = new ProfileMinimizer(model, longRun, smallSample, box, i, scales);
             ProfileRun run = new ProfileRun(model, longRun, smallSample, minimizer, i, estimate);
             double[] grid = linspace(range[0], range[1], options.points());
             run.evaluate(grid);
-            profiles.add(new Profile(names.get(i), i, estimate[i], grid, run.s, run.k, sCritical, kCritical));
-            for (double v : run.s) {
-                if (!Double.isNaN(v)) {
-                    minimumS = Math.min(minimumS, v);
-                }
-            }
+            Profile profile = new Profile(names.get(i), i, estimate[i], grid, run.s, run.k, sCritical, kCritical);
             double lowerBound = box.lower()[i];
             double upperBound = box.upper()[i];
             RobustSet sSet = extract(names.get(i), options.level(), "S", "concentrated", k - p + 1, sCritical, grid,
                     run.s, estimate[i], lowerBound, upperBound, (x, warm) -> run.sAt(x, warm), run.thetas);
             RobustSet kSet = extract(names.get(i), options.level(), "K", "concentrated", 1, kCritical, grid, run.k,
                     estimate[i], lowerBound, upperBound, (x, warm) -> run.kAt(x, warm), run.thetas);
-            sets.add(sSet);
-            sets.add(withFlatPointsNamed(kSet, grid, run.s, sCritical, run.k, kCritical));
             // The joint S-set projected on axis i is {x : min over the others of S ≤ χ²_K}: the same profile.
-            sets.add(extract(names.get(i), options.level(), "S", "joint-projection", k, jointS, grid, run.s,
-                    estimate[i], lowerBound, upperBound, (x, warm) -> run.sAt(x, warm), run.thetas));
+            RobustSet projection = extract(names.get(i), options.level(), "S", "joint-projection", k, jointS, grid,
+                    run.s, estimate[i], lowerBound, upperBound, (x, warm) -> run.sAt(x, warm), run.thetas);
+            return new ParameterSets(profile, List.of(sSet, withFlatPointsNamed(kSet, grid, run.s, sCritical, run.k,
+                    kCritical), projection));
+        });
+        List<RobustSet> sets = new ArrayList<>();
+        List<Profile> profiles = new ArrayList<>();
+        double minimumS = Double.POSITIVE_INFINITY;
+        for (ParameterSets found : perParameter) {
+            profiles.add(found.profile());
+            sets.addAll(found.sets());
+            minimumS = Math.min(minimumS, smallest(found.profile().s));
         }
         List<String> notes = new ArrayList<>();
         notes.add(String.format(Locale.ROOT, "The other parameters are concentrated out by local derivative-free "
@@ -187,16 +199,13 @@ public final class RobustSets {
                 + "missed.", options.points()));
         Optional<JointGrid> joint = Optional.empty();
         if (p == 2) {
-            JointGrid grid = jointGrid(model, longRun, smallSample, names, estimate, profiles, options, jointS, jointK);
+            JointGrid grid = jointGrid(model, longRun, smallSample, names, estimate, profiles, options, jointS, jointK,
+                    threads);
             joint = Optional.of(grid);
             for (double[] row : grid.s) {
-                for (double v : row) {
-                    if (!Double.isNaN(v)) {
-                        minimumS = Math.min(minimumS, v);
-                    }
-                }
+                minimumS = Math.min(minimumS, smallest(row));
             }
-            sets.addAll(projections(grid, options.level(), k, p, box));
+            sets.addAll(projections(grid, options.level(), p, box));
         } else if (p > 2) {
             notes.add(String.format(Locale.ROOT, "The joint S-set of all %d parameters is reported through its exact "
                     + "projections on each axis (the profile against chi-square(%d)); the joint K-set is not mapped (that "
@@ -211,6 +220,21 @@ public final class RobustSets {
                     + "at %.0f%%, %.4g.", minimumS, k, 100 * options.level(), jointS));
         }
         return new Analysis(sets, profiles, joint, minimumS, jointS, notes);
+    }
+
+    /** One parameter's profile and its S, K and joint-projection sets. */
+    private record ParameterSets(Profile profile, List<RobustSet> sets) {
+    }
+
+    /** The smallest value that is not NaN, +∞ when there is none. */
+    private static double smallest(double[] values) {
+        double min = Double.POSITIVE_INFINITY;
+        for (double v : values) {
+            if (!Double.isNaN(v)) {
+                min = Math.min(min, v);
+            }
+        }
+        return min;
     }
 
     /** χ²_df quantile at the level. */
@@ -482,58 +506,60 @@ public final class RobustSets {
 
     private static JointGrid jointGrid(MomentModel model, LongRunOptions longRun, boolean smallSample,
             List<String> names, double[] estimate, List<Profile> profiles, RobustSetOptions options, double sCritical,
-            double kCritical) {
+            double kCritical, int threads) {
         double[] xs = linspace(profiles.get(0).grid[0], profiles.get(0).grid[profiles.get(0).grid.length - 1],
                 options.jointPoints());
         double[] ys = linspace(profiles.get(1).grid[0], profiles.get(1).grid[profiles.get(1).grid.length - 1],
                 options.jointPoints());
-        double[][] s = new double[ys.length][xs.length];
-        double[][] k = new double[ys.length][xs.length];
-        for (int r = 0; r < ys.length; r++) {
+        // Every point stands alone (no warm starts), so the rows can be shared among threads in any order.
+        List<double[][]> rows = ParallelRunner.map(ys.length, threads, r -> {
+            double[][] sk = new double[2][xs.length];
             for (int c = 0; c < xs.length; c++) {
                 RobustStatistics.Point point = RobustStatistics.sAndK(model, new double[] {xs[c], ys[r]}, longRun,
                         smallSample);
-                s[r][c] = point.defined() ? point.s() : Double.NaN;
-                k[r][c] = point.defined() ? point.k() : Double.NaN;
+                sk[0][c] = point.defined() ? point.s() : Double.NaN;
+                sk[1][c] = point.defined() ? point.k() : Double.NaN;
             }
+            return sk;
+        });
+        double[][] s = new double[ys.length][];
+        double[][] k = new double[ys.length][];
+        for (int r = 0; r < ys.length; r++) {
+            s[r] = rows.get(r)[0];
+            k[r] = rows.get(r)[1];
         }
         return new JointGrid(names.get(0), names.get(1), xs, ys, s, k, sCritical, kCritical, estimate);
     }
 
     /**
      * The joint K-set's projections on each axis at the grid's resolution (the joint S-set's come exactly from
-     * the profiles).
+     * the profiles, so only K is projected from the grid).
      */
-    private static List<RobustSet> projections(JointGrid grid, double level, int k, int p, ParameterBounds box) {
+    private static List<RobustSet> projections(JointGrid grid, double level, int p, ParameterBounds box) {
         List<RobustSet> out = new ArrayList<>();
-        for (String method : List.of("K")) {
-            double[][] values = method.equals("S") ? grid.s : grid.k;
-            double critical = method.equals("S") ? grid.sCritical : grid.kCritical;
-            int df = method.equals("S") ? k : p;
-            for (int axis = 0; axis < 2; axis++) {
-                double[] along = axis == 0 ? grid.xs : grid.ys;
-                double[] best = new double[along.length];
-                java.util.Arrays.fill(best, Double.NaN);
-                for (int r = 0; r < grid.ys.length; r++) {
-                    for (int c = 0; c < grid.xs.length; c++) {
-                        int at = axis == 0 ? c : r;
-                        double v = values[r][c];
-                        if (!Double.isNaN(v) && !(best[at] <= v)) {
-                            best[at] = v;
-                        }
+        for (int axis = 0; axis < 2; axis++) {
+            double[] along = axis == 0 ? grid.xs : grid.ys;
+            double[] best = new double[along.length];
+            java.util.Arrays.fill(best, Double.NaN);
+            for (int r = 0; r < grid.ys.length; r++) {
+                for (int c = 0; c < grid.xs.length; c++) {
+                    int at = axis == 0 ? c : r;
+                    double v = grid.k[r][c];
+                    if (!Double.isNaN(v) && !(best[at] <= v)) {
+                        best[at] = v;
                     }
                 }
-                String name = axis == 0 ? grid.xName : grid.yName;
-                RobustSet projected = extract(name, level, method, "joint-projection", df, critical, along, best,
-                        grid.estimate[axis], box.lower()[axis], box.upper()[axis], null, null);
-                List<String> notes = new ArrayList<>(projected.notes());
-                notes.add(String.format(Locale.ROOT, "projection of the joint %s-set on %s at the resolution of the "
-                        + "%d x %d grid (spacing %s), so each end is known to within one spacing", method, name,
-                        grid.xs.length, grid.ys.length, number(along[1] - along[0])));
-                out.add(new RobustSet(projected.parameter(), level, method, "joint-projection", df, critical,
-                        projected.searchLow(), projected.searchHigh(), projected.intervals(),
-                        projected.containsEstimate(), projected.undefinedPoints(), notes));
             }
+            String name = axis == 0 ? grid.xName : grid.yName;
+            RobustSet projected = extract(name, level, "K", "joint-projection", p, grid.kCritical, along, best,
+                    grid.estimate[axis], box.lower()[axis], box.upper()[axis], null, null);
+            List<String> notes = new ArrayList<>(projected.notes());
+            notes.add(String.format(Locale.ROOT, "projection of the joint K-set on %s at the resolution of the "
+                    + "%d x %d grid (spacing %s), so each end is known to within one spacing", name,
+                    grid.xs.length, grid.ys.length, number(along[1] - along[0])));
+            out.add(new RobustSet(projected.parameter(), level, "K", "joint-projection", p, grid.kCritical,
+                    projected.searchLow(), projected.searchHigh(), projected.intervals(),
+                    projected.containsEstimate(), projected.undefinedPoints(), notes));
         }
         return out;
     }

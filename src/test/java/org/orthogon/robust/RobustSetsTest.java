@@ -149,6 +149,26 @@ class RobustSetsTest {
     }
 
     @Test
+    void threadCountDoesNotChangeTheSets() {
+        // The profiles and the joint grid's rows are shared among threads; every search chain keeps its own
+        // order, so one and two threads must give the same sets, profiles and grid, bit for bit.
+        ShiftedMeans model = new ShiftedMeans(7, 150, 5, LOADINGS, 0.0);
+        LongRunOptions bartlett = LongRunOptions.bartlettLags(4);
+        GmmFit fit = GmmEstimator.estimate(model, new double[2], new GmmOptions(EstimationMethod.TWO_STEP, bartlett));
+        RobustSetOptions options = RobustSetOptions.defaults(0.95).withPoints(21, 15);
+        RobustSets.Analysis one = RobustSets.compute(model, fit, bartlett, false, ParameterBounds.none(), options, 1);
+        RobustSets.Analysis two = RobustSets.compute(model, fit, bartlett, false, ParameterBounds.none(), options, 2);
+        assertThat(two.sets()).isEqualTo(one.sets());
+        assertThat(two.minimumS()).isEqualTo(one.minimumS());
+        for (int i = 0; i < 2; i++) {
+            assertThat(two.profiles().get(i).s()).containsExactly(one.profiles().get(i).s());
+            assertThat(two.profiles().get(i).k()).containsExactly(one.profiles().get(i).k());
+        }
+        assertThat(two.joint().orElseThrow().s()).isDeepEqualTo(one.joint().orElseThrow().s());
+        assertThat(two.joint().orElseThrow().k()).isDeepEqualTo(one.joint().orElseThrow().k());
+    }
+
+    @Test
     void rejectedMomentsGiveEmptySetsSaidSo() {
         // Shifting alternate means by 0.6 that no θ can absorb: S_min far above every critical value.
         ShiftedMeans model = new ShiftedMeans(7, 150, 5, LOADINGS, 0.6);
