@@ -155,6 +155,9 @@ public final class WindmeijerCorrection {
         int t = model.observations();
         int k = model.momentCount();
         int p = model.parameterCount();
+        if (model.isLinear()) {
+            model = new LinearModelView(model); // D formed once for both steps
+        }
         DMatrixRMaj g2 = model.meanMoments(secondStep);
         DMatrixRMaj jacobian2 = model.meanJacobian(secondStep);
         DMatrixRMaj a2Inverse = Matrices.invertSymmetric(Matrices.quadraticForm(jacobian2, w2), "D'WD at θ̂2");
@@ -176,7 +179,7 @@ public final class WindmeijerCorrection {
         DMatrixRMaj derivative = new DMatrixRMaj(p, p);
         DMatrixRMaj column = new DMatrixRMaj(p, 1);
         for (int j = 0; j < p; j++) {
-            double[] moved = at.derivativeTimes(RowJacobians.parameter(rows, k, p, j), weightedMoments.data);
+            double[] moved = at.derivativeTimes(rows, p, j, weightedMoments.data);
             CommonOps_DDRM.mult(projector, DMatrixRMaj.wrap(k, 1, moved), column);
             for (int i = 0; i < p; i++) {
                 derivative.set(i, j, column.get(i));

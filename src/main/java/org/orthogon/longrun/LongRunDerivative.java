@@ -207,31 +207,66 @@ public final class LongRunDerivative {
      * @return a new array of K values
      */
     public double[] derivativeTimes(DMatrixRMaj momentDerivative, double[] x) {
+        if (momentDerivative.numRows != rows || momentDerivative.numCols != cols) {
+            throw new IllegalArgumentException("the derivative series must be " + rows + " x " + cols + ", got "
+                    + momentDerivative.numRows + " x " + momentDerivative.numCols);
+        }
+        return derivativeTimes(momentDerivative.data, 1, 0, x);
+    }
+
+    /**
+     * As {@link #derivativeTimes(DMatrixRMaj, double[])} for parameter j of the T x (K·P) row Jacobians of
+     * {@link org.orthogon.moments.MomentModel#rowJacobians} (row t the K x P Jacobian of f_t), read in place.
+     */
+    public double[] derivativeTimes(DMatrixRMaj rowJacobians, int parameters, int j, double[] x) {
+        if (rowJacobians.numRows != rows || rowJacobians.numCols != cols * parameters || j < 0 || j >= parameters) {
+            throw new IllegalArgumentException("the row Jacobians must be " + rows + " x " + cols * parameters
+                    + " with 0 <= j < " + parameters + ", got " + rowJacobians.numRows + " x " + rowJacobians.numCols
+                    + " and j = " + j);
+        }
+        return derivativeTimes(rowJacobians.data, parameters, j, x);
+    }
+
+    /** The product for u̇_tc = data[(t K + c) stride + offset]. */
+    private double[] derivativeTimes(double[] data, int stride, int offset, double[] x) {
         if (x.length != cols) {
             throw new IllegalArgumentException("x must have the K = " + cols + " values of the moments, got "
                     + x.length);
         }
         if (recolour != null) {
+            DMatrixRMaj du = new DMatrixRMaj(rows, cols);
+            for (int i = 0; i < rows * cols; i++) {
+                du.data[i] = data[i * stride + offset];
+            }
             DMatrixRMaj product = new DMatrixRMaj(cols, 1);
-            CommonOps_DDRM.mult(derivative(momentDerivative), DMatrixRMaj.wrap(cols, 1, x), product);
+            CommonOps_DDRM.mult(derivative(du), DMatrixRMaj.wrap(cols, 1, x), product);
             return product.data;
         }
-        if (momentDerivative.numRows != rows || momentDerivative.numCols != cols) {
-            throw new IllegalArgumentException("the derivative series must be " + rows + " x " + cols + ", got "
-                    + momentDerivative.numRows + " x " + momentDerivative.numCols);
+        // centering as in Autocovariances: the column means of u̇ come off every row
+        double[] mean = new double[cols];
+        if (centered) {
+            for (int t = 0; t < rows; t++) {
+                for (int c = 0; c < cols; c++) {
+                    mean[c] += data[(t * cols + c) * stride + offset];
+                }
+            }
+            for (int c = 0; c < cols; c++) {
+                mean[c] /= rows;
+            }
         }
-        double[] du = demeanedOther(momentDerivative);
         double[] out = new double[cols];
+        double[] du = new double[cols];
         for (int t = 0; t < rows; t++) {
             int row = t * cols;
             double vx = 0.0;
             double dx = 0.0;
             for (int c = 0; c < cols; c++) {
+                du[c] = data[(row + c) * stride + offset] - mean[c];
                 vx += weighted[row + c] * x[c];
-                dx += du[row + c] * x[c];
+                dx += du[c] * x[c];
             }
             for (int c = 0; c < cols; c++) {
-                out[c] += du[row + c] * vx + weighted[row + c] * dx;
+                out[c] += du[c] * vx + weighted[row + c] * dx;
             }
         }
         for (int c = 0; c < cols; c++) {
@@ -254,7 +289,7 @@ public final class LongRunDerivative {
 
     /** u_t, centered when the options center (the same centering as {@link Autocovariances#of}). */
     private double[] demeaned(DMatrixRMaj m) {
-        return Autocovariances.of(m, centered).series().clone();
+        return Autocovariances.of(m, centered).series(); // a fresh array, owned here
     }
 
     private double[] demeanedOther(DMatrixRMaj other) {
