@@ -75,7 +75,13 @@ public final class CsvSeries {
      *                        and rows with the wrong number of cells
      */
     public static SeriesTable read(Path file) {
-        String text = readText(file);
+        byte[] bytes = readBytes(file);
+        SeriesTable plain = PlainCsv.read(file, bytes);
+        return plain != null ? plain : read(file, decodeUtf8(file, bytes));
+    }
+
+    /** The general reader over the decoded text (Commons CSV): the parser of record, and every refusal. */
+    static SeriesTable read(Path file, String text) {
         List<RawRow> rows = parse(file, text);
         if (rows.isEmpty()) {
             throw InputException.in(file).problem("the file is empty",
@@ -193,6 +199,11 @@ public final class CsvSeries {
     }
 
     static String readText(Path file) {
+        return decodeUtf8(file, readBytes(file));
+    }
+
+    /** The file's bytes, refusing a missing, unreadable or folder path. */
+    private static byte[] readBytes(Path file) {
         if (!Files.exists(file)) {
             throw InputException.in(file).problem(
                     "the file does not exist (looked for " + file.toAbsolutePath().normalize() + ")",
@@ -206,14 +217,12 @@ public final class CsvSeries {
             throw InputException.in(file).problem("the file cannot be read (permission denied)",
                     "give your user read permission on the file, or copy it somewhere readable");
         }
-        byte[] bytes;
         try {
-            bytes = Files.readAllBytes(file);
+            return Files.readAllBytes(file);
         } catch (IOException e) {
             throw InputException.in(file).problem("the file cannot be read (" + e.getMessage() + ")",
                     "check that the file is a regular file you may read and that the disk is reachable");
         }
-        return decodeUtf8(file, bytes);
     }
 
     private static String csvFilesIn(Path folder) {
@@ -290,7 +299,7 @@ public final class CsvSeries {
         return t.getMessage();
     }
 
-    private static List<String> columnNames(Path file, RawRow header) {
+    static List<String> columnNames(Path file, RawRow header) {
         List<String> cells = header.cells;
         if (cells.size() < 2) {
             String only = cells.isEmpty() ? "" : cells.get(0);

@@ -98,7 +98,7 @@ final class FixedSelectionEstimator {
                 t, p, 0, 0, true, List.of());
         GmmFit fit = new GmmFit(EstimationMethod.ONE_STEP, parameters, covariance, t, k,
                 Inference.quadraticStatistic(g, weight, t), joint, errors, joint, finalS, 0, warnings, weight,
-                diagnostics, null, options.confidenceLevel());
+                diagnostics, null, options.confidenceLevel(), null);
         return options.smallSample() ? SmallSampleCorrection.apply(fit) : fit;
     }
 

@@ -145,14 +145,19 @@ public final class GmmEstimator {
         boolean converged = true;
         List<String> atBounds = first.atBounds();
         double[] theta = first.theta();
+        FirstStep firstStep = null;
         switch (options.method()) {
             case ONE_STEP -> {
             }
             case TWO_STEP -> {
-                weight = efficientWeight(model, theta, longRunOptions, "S at the first-step estimate");
+                LongRunEstimate firstS = longRun(model, theta, longRunOptions);
+                weight = efficientWeight(model, firstS, "S at the first-step estimate");
                 last = WeightedMinimizer.minimize(model, weight, theta, bounds);
                 requireConverged(last, "second step (W = S^{-1})");
                 weightUpdates = 1;
+                if (detail == Detail.FULL) {
+                    firstStep = new FirstStep(theta, firstS, weight);
+                }
             }
             case ITERATED -> {
                 double change = Double.POSITIVE_INFINITY;
@@ -303,7 +308,7 @@ public final class GmmEstimator {
         GmmDiagnostics diagnostics = new GmmDiagnostics(1.0 / rcondS, 1.0 / rcondDwd, k, t, p, solverIterations,
                 weightUpdates, converged && last.converged(), atBounds);
         return new GmmFit(options.method(), parameters, covariance, t, k, objective, overidentification, errors, joint,
-                finalS, solverIterations, warnings, weight, diagnostics, hj, options.confidenceLevel());
+                finalS, solverIterations, warnings, weight, diagnostics, hj, options.confidenceLevel(), firstStep);
     }
 
     /**
@@ -348,8 +353,13 @@ public final class GmmEstimator {
     /** S(θ)^{-1}; K = P needs no weight (the estimate solves g = 0), so the identity stands in when S is singular. */
     private static DMatrixRMaj efficientWeight(MomentModel model, double[] theta, LongRunOptions options,
             String what) {
+        return efficientWeight(model, longRun(model, theta, options), what);
+    }
+
+    /** S^{-1} of an S already estimated, with the identity for K = P as above. */
+    private static DMatrixRMaj efficientWeight(MomentModel model, LongRunEstimate s, String what) {
         try {
-            return Matrices.invertSymmetric(longRun(model, theta, options).covariance(), what);
+            return Matrices.invertSymmetric(s.covariance(), what);
         } catch (Matrices.SingularMatrixException e) {
             if (model.momentCount() == model.parameterCount()) {
                 return CommonOps_DDRM.identity(model.momentCount());

@@ -31,6 +31,8 @@ import org.orthogon.longrun.LongRunEstimate;
  * @param hjDistance        the Hansen-Jagannathan distance, or null when it could not be computed
  *                          (the reason is in the warnings)
  * @param confidenceLevel   the level of {@link #confidenceIntervals()}
+ * @param firstStep         for a two-step fit with everything computed, its first step (what Windmeijer's
+ *                          correction needs); null otherwise
  */
 public record GmmFit(
         EstimationMethod method,
@@ -48,7 +50,8 @@ public record GmmFit(
         DMatrixRMaj weight,
         GmmDiagnostics diagnostics,
         HjDistance hjDistance,
-        double confidenceLevel) {
+        double confidenceLevel,
+        FirstStep firstStep) {
 
     public GmmFit {
         parameters = List.copyOf(parameters);
@@ -66,6 +69,11 @@ public record GmmFit(
     @Override
     public DMatrixRMaj weight() {
         return weight.copy();
+    }
+
+    /** The first step of a two-step fit, when the estimator kept it ({@link GmmEstimator.Detail#FULL}). */
+    public Optional<FirstStep> firstStepKept() {
+        return Optional.ofNullable(firstStep);
     }
 
     /** The Hansen-Jagannathan distance when it was computed. */

@@ -106,7 +106,7 @@ public final class IdentificationDiagnostics {
         return new GmmFit(fit.method(), fit.parameters(), fit.covariance(), fit.observations(), fit.momentCount(),
                 fit.objective(), fit.overidentification(), fit.pricingErrors(), fit.pricingErrorsJoint(), fit.longRun(),
                 fit.solverIterations(), warnings, fit.weight(), fit.diagnostics().withIdentification(sigma, problems),
-                fit.hjDistance(), fit.confidenceLevel());
+                fit.hjDistance(), fit.confidenceLevel(), fit.firstStep());
     }
 
     /**

@@ -62,7 +62,7 @@ public final class SmallSampleCorrection {
         return new GmmFit(fit.method(), parameters, covariance, t, fit.momentCount(), objective,
                 scaled(fit.overidentification(), 1.0 / c),
                 errors, scaled(fit.pricingErrorsJoint(), 1.0 / c), longRun, fit.solverIterations(), warnings, weight,
-                fit.diagnostics(), hj, fit.confidenceLevel());
+                fit.diagnostics(), hj, fit.confidenceLevel(), fit.firstStep());
     }
 
     private static ChiSquareTest scaled(ChiSquareTest test, double factor) {

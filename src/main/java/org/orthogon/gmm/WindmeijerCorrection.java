@@ -95,7 +95,8 @@ public final class WindmeijerCorrection {
 
     /**
      * The correction of a two-step fit made by {@link GmmEstimator#estimate} from {@code start} with
-     * {@code options}: the first step is repeated (it is deterministic, so θ̂1 is the estimator's own).
+     * {@code options}. The fit's own first step ({@link GmmFit#firstStepKept()}) is used when it kept one;
+     * otherwise the first step is repeated (it is deterministic, so θ̂1 is the estimator's own).
      * Empty when {@link #notApplicable(GmmFit)} says so.
      *
      * @throws EstimationException when S at the first step, G2'W2G2 or G1'W0G1 is singular
@@ -112,10 +113,17 @@ public final class WindmeijerCorrection {
     }
 
     private static Result corrected(MomentModel model, double[] start, GmmOptions options, GmmFit fit) {
-        ParameterBounds bounds = options.bounds().forParameters(model.parameterCount());
         DMatrixRMaj initial = options.initialWeight().matrix(model);
-        WeightedMinimizer.Minimum first = WeightedMinimizer.minimize(model, initial, bounds.clamp(start), bounds);
-        Result raw = correct(model, first.theta(), fit.estimates(), initial, options.longRun());
+        Result raw;
+        if (fit.firstStepKept().isPresent()) {
+            FirstStep first = fit.firstStepKept().get();
+            raw = correct(model, first.estimate(), fit.estimates(), initial, options.longRun(), first.longRun(),
+                    first.weight());
+        } else {
+            ParameterBounds bounds = options.bounds().forParameters(model.parameterCount());
+            WeightedMinimizer.Minimum first = WeightedMinimizer.minimize(model, initial, bounds.clamp(start), bounds);
+            raw = correct(model, first.theta(), fit.estimates(), initial, options.longRun());
+        }
         if (!options.smallSample()) {
             return raw;
         }
@@ -132,12 +140,24 @@ public final class WindmeijerCorrection {
      */
     public static Result correct(MomentModel model, double[] firstStep, double[] secondStep, DMatrixRMaj initialWeight,
             LongRunOptions longRun) {
+        LongRunEstimate s1 = LongRunCovariance.estimate(model.contributions(firstStep), longRun);
+        DMatrixRMaj w2 = Matrices.invertSymmetric(s1.covariance(), "S at the first-step estimate");
+        return correct(model, firstStep, secondStep, initialWeight, longRun, s1, w2);
+    }
+
+    /**
+     * V_c with S(θ̂1) and W2 = S(θ̂1)^{-1} already formed. Column j of 𝒟 needs only the vector
+     * (∂S/∂θ_j) W2 g2, which {@link LongRunDerivative#derivativeTimes} forms in O(T K) without the K x K
+     * matrix ∂S/∂θ_j (O(T K²)) when the moments are not prewhitened.
+     */
+    private static Result correct(MomentModel model, double[] firstStep, double[] secondStep,
+            DMatrixRMaj initialWeight, LongRunOptions longRun, LongRunEstimate s1, DMatrixRMaj w2) {
         int t = model.observations();
         int k = model.momentCount();
         int p = model.parameterCount();
-        DMatrixRMaj f1 = model.contributions(firstStep);
-        LongRunEstimate s1 = LongRunCovariance.estimate(f1, longRun);
-        DMatrixRMaj w2 = Matrices.invertSymmetric(s1.covariance(), "S at the first-step estimate");
+        if (model.isLinear()) {
+            model = new LinearModelView(model); // D formed once for both steps
+        }
         DMatrixRMaj g2 = model.meanMoments(secondStep);
         DMatrixRMaj jacobian2 = model.meanJacobian(secondStep);
         DMatrixRMaj a2Inverse = Matrices.invertSymmetric(Matrices.quadraticForm(jacobian2, w2), "D'WD at θ̂2");
@@ -154,15 +174,13 @@ public final class WindmeijerCorrection {
         DMatrixRMaj weightedMoments = new DMatrixRMaj(k, 1);
         CommonOps_DDRM.mult(w2, g2, weightedMoments);
 
-        LongRunDerivative at = LongRunDerivative.at(f1, longRun, s1.bandwidth());
+        LongRunDerivative at = LongRunDerivative.at(model.contributions(firstStep), longRun, s1.bandwidth());
         DMatrixRMaj rows = RowJacobians.of(model, firstStep);
         DMatrixRMaj derivative = new DMatrixRMaj(p, p);
-        DMatrixRMaj moved = new DMatrixRMaj(k, 1);
         DMatrixRMaj column = new DMatrixRMaj(p, 1);
         for (int j = 0; j < p; j++) {
-            DMatrixRMaj dS = at.derivative(RowJacobians.parameter(rows, k, p, j));
-            CommonOps_DDRM.mult(dS, weightedMoments, moved);
-            CommonOps_DDRM.mult(projector, moved, column);
+            double[] moved = at.derivativeTimes(rows, p, j, weightedMoments.data);
+            CommonOps_DDRM.mult(projector, DMatrixRMaj.wrap(k, 1, moved), column);
             for (int i = 0; i < p; i++) {
                 derivative.set(i, j, column.get(i));
             }

@@ -40,7 +40,7 @@ public final class LongRunDerivative {
     private final double[] series; // u (or the residuals e with prewhitening), row-major
     private final int seriesRows;
     private final double[] weighted; // W u (or W e), row-major
-    private final DMatrixRMaj innerCovariance; // S (or S_e)
+    private DMatrixRMaj innerCovariance; // S (or S_e), formed when first needed
     // prewhitening only
     private final DMatrixRMaj lagged; // X
     private final DMatrixRMaj lead; // Y
@@ -95,7 +95,14 @@ public final class LongRunDerivative {
         }
         this.weights = kernelWeights(options.kernel(), bandwidth, seriesRows - 1);
         this.weighted = applyKernel(series, seriesRows);
-        this.innerCovariance = symmetric(cross(series, weighted, seriesRows));
+    }
+
+    /** S (or S_e with prewhitening) at the fixed bandwidth, T K² multiply-adds, formed once. */
+    private DMatrixRMaj inner() {
+        if (innerCovariance == null) {
+            innerCovariance = symmetric(cross(series, weighted, seriesRows));
+        }
+        return innerCovariance;
     }
 
     /**
@@ -113,7 +120,7 @@ public final class LongRunDerivative {
 
     /** S at the fixed bandwidth, K x K (equal to {@link LongRunCovariance#estimate} with that bandwidth). */
     public DMatrixRMaj covariance() {
-        return recolour == null ? innerCovariance.copy() : sandwich(recolour, innerCovariance);
+        return recolour == null ? inner().copy() : sandwich(recolour, inner());
     }
 
     /**
@@ -178,13 +185,92 @@ public final class LongRunDerivative {
         CommonOps_DDRM.multTransB(recolour, dB, tmp);
         CommonOps_DDRM.mult(tmp, recolour, dQ);
         DMatrixRMaj half = new DMatrixRMaj(cols, cols);
-        CommonOps_DDRM.mult(dQ, innerCovariance, tmp);
+        CommonOps_DDRM.mult(dQ, inner(), tmp);
         CommonOps_DDRM.multTransB(tmp, recolour, half);
         DMatrixRMaj out = sandwich(recolour, dInner);
         for (int p = 0; p < cols; p++) {
             for (int q = 0; q < cols; q++) {
                 out.data[p * cols + q] += half.data[p * cols + q] + half.data[q * cols + p];
             }
+        }
+        return out;
+    }
+
+    /**
+     * (∂S/∂θ_j) x for a K-vector x, without forming the K x K derivative when there is no prewhitening:
+     * with M = u̇'V/T (V = W u), ∂S/∂θ_j = M + M', so the product is u̇'(V x)/T + V'(u̇ x)/T, two passes of
+     * T K multiply-adds instead of the T K² of {@link #derivative}. With prewhitening the derivative is
+     * formed and multiplied (the chain rule through the VAR(1) fit needs K x K products anyway).
+     *
+     * @param momentDerivative ∂f_t/∂θ_j, T x K
+     * @param x                K values
+     * @return a new array of K values
+     */
+    public double[] derivativeTimes(DMatrixRMaj momentDerivative, double[] x) {
+        if (momentDerivative.numRows != rows || momentDerivative.numCols != cols) {
+            throw new IllegalArgumentException("the derivative series must be " + rows + " x " + cols + ", got "
+                    + momentDerivative.numRows + " x " + momentDerivative.numCols);
+        }
+        return derivativeTimes(momentDerivative.data, 1, 0, x);
+    }
+
+    /**
+     * As {@link #derivativeTimes(DMatrixRMaj, double[])} for parameter j of the T x (K·P) row Jacobians of
+     * {@link org.orthogon.moments.MomentModel#rowJacobians} (row t the K x P Jacobian of f_t), read in place.
+     */
+    public double[] derivativeTimes(DMatrixRMaj rowJacobians, int parameters, int j, double[] x) {
+        if (rowJacobians.numRows != rows || rowJacobians.numCols != cols * parameters || j < 0 || j >= parameters) {
+            throw new IllegalArgumentException("the row Jacobians must be " + rows + " x " + cols * parameters
+                    + " with 0 <= j < " + parameters + ", got " + rowJacobians.numRows + " x " + rowJacobians.numCols
+                    + " and j = " + j);
+        }
+        return derivativeTimes(rowJacobians.data, parameters, j, x);
+    }
+
+    /** The product for u̇_tc = data[(t K + c) stride + offset]. */
+    private double[] derivativeTimes(double[] data, int stride, int offset, double[] x) {
+        if (x.length != cols) {
+            throw new IllegalArgumentException("x must have the K = " + cols + " values of the moments, got "
+                    + x.length);
+        }
+        if (recolour != null) {
+            DMatrixRMaj du = new DMatrixRMaj(rows, cols);
+            for (int i = 0; i < rows * cols; i++) {
+                du.data[i] = data[i * stride + offset];
+            }
+            DMatrixRMaj product = new DMatrixRMaj(cols, 1);
+            CommonOps_DDRM.mult(derivative(du), DMatrixRMaj.wrap(cols, 1, x), product);
+            return product.data;
+        }
+        // centering as in Autocovariances: the column means of u̇ come off every row
+        double[] mean = new double[cols];
+        if (centered) {
+            for (int t = 0; t < rows; t++) {
+                for (int c = 0; c < cols; c++) {
+                    mean[c] += data[(t * cols + c) * stride + offset];
+                }
+            }
+            for (int c = 0; c < cols; c++) {
+                mean[c] /= rows;
+            }
+        }
+        double[] out = new double[cols];
+        double[] du = new double[cols];
+        for (int t = 0; t < rows; t++) {
+            int row = t * cols;
+            double vx = 0.0;
+            double dx = 0.0;
+            for (int c = 0; c < cols; c++) {
+                du[c] = data[(row + c) * stride + offset] - mean[c];
+                vx += weighted[row + c] * x[c];
+                dx += du[c] * x[c];
+            }
+            for (int c = 0; c < cols; c++) {
+                out[c] += du[c] * vx + weighted[row + c] * dx;
+            }
+        }
+        for (int c = 0; c < cols; c++) {
+            out[c] /= divisor;
         }
         return out;
     }
@@ -203,7 +289,7 @@ public final class LongRunDerivative {
 
     /** u_t, centered when the options center (the same centering as {@link Autocovariances#of}). */
     private double[] demeaned(DMatrixRMaj m) {
-        return Autocovariances.of(m, centered).series().clone();
+        return Autocovariances.of(m, centered).series(); // a fresh array, owned here
     }
 
     private double[] demeanedOther(DMatrixRMaj other) {

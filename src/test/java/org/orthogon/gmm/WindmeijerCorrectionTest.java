@@ -83,6 +83,30 @@ class WindmeijerCorrectionTest {
     }
 
     @Test
+    void theFirstStepKeptByTheFitGivesTheCorrectionOfARepeatedFirstStep() {
+        RunSpec spec = ModelFile.read(Paths.get("models/lumen-power-utility.toml"));
+        FittedRun run = FittedRun.of(spec);
+        GmmFit fit = run.fit();
+        assertThat(fit.firstStepKept()).isPresent();
+        GmmFit withoutFirstStep = new GmmFit(fit.method(), fit.parameters(), fit.covariance(), fit.observations(),
+                fit.momentCount(), fit.objective(), fit.overidentification(), fit.pricingErrors(),
+                fit.pricingErrorsJoint(), fit.longRun(), fit.solverIterations(), fit.warnings(), fit.weight(),
+                fit.diagnostics(), fit.hjDistance(), fit.confidenceLevel(), null);
+        GmmOptions options = FittedRun.options(spec, run.prepared());
+        WindmeijerCorrection.Result kept = WindmeijerCorrection.of(run.prepared().moments(),
+                run.prepared().startValues(), options, fit).orElseThrow();
+        WindmeijerCorrection.Result repeated = WindmeijerCorrection.of(run.prepared().moments(),
+                run.prepared().startValues(), options, withoutFirstStep).orElseThrow();
+        // the same first step either way; only the order of sums differs (the estimator's linear view)
+        assertThat(kept.firstStep()).containsExactly(repeated.firstStep(),
+                org.assertj.core.api.Assertions.within(1e-12));
+        for (int i = 0; i < kept.stdErrors().length; i++) {
+            assertThat(kept.stdErrors()[i]).isCloseTo(repeated.stdErrors()[i],
+                    org.assertj.core.api.Assertions.within(1e-10 * repeated.stdErrors()[i]));
+        }
+    }
+
+    @Test
     void onlyOverIdentifiedTwoStepFitsAreCorrected() {
         LinearRegressionMoments model = ivModel();
         GmmOptions iterated = new GmmOptions(EstimationMethod.ITERATED, LongRunOptions.heteroskedasticityConsistent());

@@ -114,6 +114,23 @@ class LongRunDerivativeTest {
         assertClose(analytic, numerical, 1e-7);
     }
 
+    @ParameterizedTest(name = "{0} b={1} centered={2} prewhiten={3}")
+    @MethodSource("estimators")
+    void derivativeTimesAVectorIsTheDerivativeMatrixTimesIt(Kernel kernel, double b, boolean centered,
+            boolean prewhiten) {
+        // the matrix-vector route of Windmeijer's correction against the K x K derivative (algebra: both are
+        // (u̇'V + V'u̇) x / T; only the order of the sums differs)
+        Series series = new Series(8);
+        double theta = -0.3;
+        LongRunDerivative at = LongRunDerivative.at(series.moments(theta), options(kernel, b, centered, prewhiten), b);
+        DMatrixRMaj matrix = at.derivative(series.derivative(theta));
+        double[] x = {0.7, -1.3, 0.25};
+        double[] product = at.derivativeTimes(series.derivative(theta), x);
+        DMatrixRMaj expected = new DMatrixRMaj(K, 1);
+        org.ejml.dense.row.CommonOps_DDRM.mult(matrix, DMatrixRMaj.wrap(K, 1, x), expected);
+        assertClose(DMatrixRMaj.wrap(K, 1, product), expected, 1e-13);
+    }
+
     @Test
     void heteroskedasticityConsistentCrossCovarianceIsTheAverageCrossProduct() {
         Series series = new Series(3);
