@@ -57,6 +57,11 @@ def timed(command, repeat):
 
 
 def java(*args):
+    """The launcher bin/orthogon (class-data archive, client compiler for short runs, serial collector)."""
+    return [os.path.join(ROOT, "bin", "orthogon")] + list(args)
+
+
+def plain_java(*args):
     command = ["java"]
     if os.path.exists(CDS):
         # the class-data-sharing archive written at package time; ignored silently if this JVM cannot use it

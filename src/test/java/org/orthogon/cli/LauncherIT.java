@@ -52,7 +52,7 @@ class LauncherIT {
         assertThat(usage.code()).isEqualTo(Main.EXIT_INPUT);
         Run version = run(Map.of(), List.of(LAUNCHER.toString(), "--version"));
         assertThat(version.code()).isZero();
-        assertThat(version.out()).startsWith("orthogon ");
+        assertThat(version.out()).startsWith("Orthogon ");
     }
 
     @Test
