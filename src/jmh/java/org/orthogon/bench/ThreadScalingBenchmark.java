@@ -30,14 +30,15 @@ import org.orthogon.spec.RunSpec;
  * The repeated fits of {@code stability} on the sup-Wald peer workload (N = 25, T = 600, two-step with
  * the Newey-West bandwidth and the fixed-weight variant) on 1 and 2 threads: every break date of the
  * sup-Wald test (the null distribution is drawn once per process, so the time is the fits'), and
- * rolling windows of 120 months moved by one month.
+ * rolling windows of 120 months moved by one month. Two forks of ten measured iterations: on a 2-core
+ * virtual machine one fork of five gave speed-ups anywhere from 1.4x to 2.1x for the same code.
  */
 @State(Scope.Benchmark)
 @BenchmarkMode(Mode.AverageTime)
 @OutputTimeUnit(TimeUnit.MILLISECONDS)
-@Warmup(iterations = 3, time = 2)
-@Measurement(iterations = 5, time = 2)
-@Fork(value = 1, jvmArgsAppend = {"-Xms1g", "-Xmx1g"})
+@Warmup(iterations = 5, time = 2)
+@Measurement(iterations = 10, time = 2)
+@Fork(value = 2, jvmArgsAppend = {"-Xms1g", "-Xmx1g"})
 public class ThreadScalingBenchmark {
     @Param({"1", "2"})
     int threads;
