@@ -65,6 +65,15 @@ class LauncherIT {
     }
 
     @Test
+    void aSymbolicLinkToTheLauncherFindsTheJar() throws Exception {
+        Path link = Files.createSymbolicLink(dir.resolve("orthogon"), LAUNCHER);
+        Run version = run(Map.of(), List.of(link.toString(), "--version"));
+        Files.delete(link); // ourselves: JUnit warns when it has to remove a link that leads out of its folder
+        assertThat(version.code()).as(version.err()).isZero();
+        assertThat(version.out()).startsWith("Orthogon ");
+    }
+
+    @Test
     void aLauncherWithoutItsJarSaysHowToBuildIt() throws Exception {
         Path bin = Files.createDirectories(dir.resolve("copy/bin"));
         Path copy = bin.resolve("orthogon");
