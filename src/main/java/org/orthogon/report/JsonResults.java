@@ -12,10 +12,9 @@ import org.orthogon.spec.FittedRun;
 import org.orthogon.spec.RunSpec;
 import org.orthogon.spec.SampleInfo;
 import org.orthogon.spec.Warning;
-import tools.jackson.databind.json.JsonMapper;
 import tools.jackson.databind.node.ArrayNode;
+import tools.jackson.databind.node.JsonNodeFactory;
 import tools.jackson.databind.node.ObjectNode;
-import tools.jackson.databind.SerializationFeature;
 
 /**
  * The results JSON described in docs/output.md. Field names are a contract: add, never rename. Numbers
@@ -23,19 +22,17 @@ import tools.jackson.databind.SerializationFeature;
  * of freedom) is written as null.
  */
 public final class JsonResults {
-    private static final JsonMapper MAPPER = JsonMapper.builder().enable(SerializationFeature.INDENT_OUTPUT).build();
-
     private JsonResults() {
     }
 
     /** An empty JSON object to fill. */
     public static ObjectNode newObject() {
-        return MAPPER.createObjectNode();
+        return JsonNodeFactory.instance.objectNode();
     }
 
     /** The results object of one fit. */
     public static ObjectNode fit(RunSpec spec, SampleInfo sample, GmmFit fit) {
-        ObjectNode root = MAPPER.createObjectNode();
+        ObjectNode root = JsonNodeFactory.instance.objectNode();
         root.put("title", spec.title());
         root.put("family", spec.model().family().id());
         root.put("method", fit.method().id());
@@ -189,7 +186,7 @@ public final class JsonResults {
 
     /** Pretty-printed JSON text with a final newline. */
     public static String text(ObjectNode node) {
-        return MAPPER.writeValueAsString(node) + "\n";
+        return JsonText.of(node) + "\n";
     }
 
     private static void test(ObjectNode node, ChiSquareTest test) {

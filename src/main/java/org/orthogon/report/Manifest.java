@@ -9,8 +9,8 @@ import org.orthogon.gmm.GmmFit;
 import org.orthogon.longrun.BandwidthRule;
 import org.orthogon.spec.InputSummary;
 import org.orthogon.spec.RunSpec;
-import tools.jackson.databind.json.JsonMapper;
 import tools.jackson.databind.node.ArrayNode;
+import tools.jackson.databind.node.JsonNodeFactory;
 import tools.jackson.databind.node.ObjectNode;
 
 /**
@@ -76,7 +76,7 @@ public final class Manifest {
      */
     public static ObjectNode of(Run run, List<RunSpec> specs, List<List<InputSummary>> inputs,
             Map<String, String> outputs) {
-        ObjectNode root = JsonMapper.builder().build().createObjectNode();
+        ObjectNode root = JsonNodeFactory.instance.objectNode();
         root.put("orthogon_version", run.version());
         root.put("command", run.command());
         ArrayNode arguments = root.putArray("arguments");

@@ -32,7 +32,7 @@ import org.orthogon.spec.RunSpec.EstimationSpec;
 import tools.jackson.core.JacksonException;
 import tools.jackson.core.TokenStreamLocation;
 import tools.jackson.databind.JsonNode;
-import tools.jackson.dataformat.toml.TomlMapper;
+import tools.jackson.databind.node.JsonNodeFactory;
 
 /**
  * Reads a model file (TOML; every key is described in docs/model-file.md) into a {@link RunSpec}. Every refusal is an
@@ -77,7 +77,7 @@ public final class ModelFile {
         String text = readUtf8(file);
         JsonNode root;
         try {
-            root = TomlMapper.builder().build().readTree(text);
+            root = TomlTree.read(text);
         } catch (JacksonException e) {
             TokenStreamLocation location = e.getLocation();
             int line = location == null ? 0 : Math.max(location.getLineNr(), 0);
@@ -272,7 +272,7 @@ public final class ModelFile {
     }
 
     private EstimationSpec parseEstimation(JsonNode estimation, ModelSpec model) {
-        JsonNode node = estimation == null ? TomlMapper.builder().build().createObjectNode() : estimation;
+        JsonNode node = estimation == null ? JsonNodeFactory.instance.objectNode() : estimation;
         for (String key : node.propertyNames()) {
             model.estimationKeyRefusal(key).ifPresent(refusal -> {
                 throw error("estimation", key, key + " cannot be used with the " + model.family().id() + " family: "
