@@ -3,7 +3,7 @@
 resident memory and the differences between their numbers (docs/benchmarks.md).
 
   python3 bench/compare.py            # build, generate the data, run everything (about 5 minutes)
-  python3 bench/compare.py --no-build # reuse target/orthogon.jar and target/benchmarks.jar
+  python3 bench/compare.py --no-build # reuse target/orthogon.jar, target/orthogon.jsa and target/benchmarks.jar
   python3 bench/compare.py --repeat 5 # runs per end-to-end timing (median reported; default 3)
 
 Needs Java 17, Maven, and NumPy and SciPy (Debian: apt-get install python3-numpy python3-scipy).
@@ -27,7 +27,6 @@ ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
 WORK = os.path.join(ROOT, "target", "peer-bench")
 JAR = os.path.join(ROOT, "target", "orthogon.jar")
 BENCH_JAR = os.path.join(ROOT, "target", "benchmarks.jar")
-CDS = os.path.join(ROOT, "target", "orthogon.jsa")
 
 
 def require_numpy():
@@ -59,14 +58,6 @@ def timed(command, repeat):
 def java(*args):
     """The launcher bin/orthogon (class-data archive, client compiler for short runs, serial collector)."""
     return [os.path.join(ROOT, "bin", "orthogon")] + list(args)
-
-
-def plain_java(*args):
-    command = ["java"]
-    if os.path.exists(CDS):
-        # the class-data-sharing archive written at package time; ignored silently if this JVM cannot use it
-        command += ["-XX:SharedArchiveFile=" + CDS, "-Xshare:auto", "-Xlog:disable"]
-    return command + ["-jar", JAR] + list(args)
 
 
 def peer(*args):
