@@ -194,7 +194,16 @@ final class PlainCsv {
         int scale = 0;
         int digits = 0;
         boolean exact = true;
-        for (; i < to && bytes[i] >= '0' && bytes[i] <= '9'; i++) {
+        // the integer and the fraction digits in one pass; a digit after the point lowers the scale
+        boolean afterPoint = false;
+        for (; i < to; i++) {
+            if (bytes[i] == '.' && !afterPoint) {
+                afterPoint = true;
+                continue;
+            }
+            if (bytes[i] < '0' || bytes[i] > '9') {
+                break;
+            }
             digits++;
             int d = bytes[i] - '0';
             if (significant > 0 || d != 0) {
@@ -205,20 +214,7 @@ final class PlainCsv {
                     exact = false;
                 }
             }
-        }
-        if (i < to && bytes[i] == '.') {
-            i++;
-            for (; i < to && bytes[i] >= '0' && bytes[i] <= '9'; i++) {
-                digits++;
-                int d = bytes[i] - '0';
-                if (significant > 0 || d != 0) {
-                    if (significant < 18) {
-                        mantissa = mantissa * 10 + d;
-                        significant++;
-                    } else {
-                        exact = false;
-                    }
-                }
+            if (afterPoint) {
                 scale--;
             }
         }

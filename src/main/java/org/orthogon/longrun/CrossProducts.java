@@ -14,6 +14,13 @@ package org.orthogon.longrun;
  * products of the estimators (second-moment matrices, quadratic forms L'ML).
  */
 public final class CrossProducts {
+    /**
+     * Doubles of the triangle one block may hold: 24 KiB, within the 32 KiB first-level data cache of
+     * current x86 and ARM cores, with room for the four rows of b (common practice for cache blocking,
+     * no source).
+     */
+    private static final int L1_BLOCK_DOUBLES = 3 * 1024;
+
     private CrossProducts() {
     }
 
@@ -70,13 +77,6 @@ public final class CrossProducts {
             }
         }
     }
-
-    /**
-     * Doubles of the triangle one block may hold: 24 KiB, within the 32 KiB first-level data cache of
-     * current x86 and ARM cores, with room for the four rows of b (common practice for cache blocking,
-     * no source).
-     */
-    private static final int L1_BLOCK_DOUBLES = 3 * 1024;
 
     /** One past the last row of the block that starts at row {@code first}: at least one row. */
     private static int blockEnd(int first, int cols) {

@@ -64,7 +64,7 @@ class WindmeijerCorrectionTest {
         GmmFit fit = GmmEstimator.estimate(model, new double[2], options);
         WindmeijerCorrection.Result result = WindmeijerCorrection.of(model, new double[2], options, fit).orElseThrow();
         double[] first = result.firstStep();
-        assertThat(twoStep(model, first, hc)).containsExactly(fit.estimates(), org.assertj.core.api.Assertions.within(1e-10));
+        assertThat(secondStepFrom(model, first, hc)).containsExactly(fit.estimates(), org.assertj.core.api.Assertions.within(1e-10));
         DMatrixRMaj d = result.derivative();
         for (int j = 0; j < 2; j++) {
             double h = 1e-5 * Math.max(1.0, Math.abs(first[j]));
@@ -72,8 +72,8 @@ class WindmeijerCorrectionTest {
             double[] down = first.clone();
             up[j] += h;
             down[j] -= h;
-            double[] plus = twoStep(model, up, hc);
-            double[] minus = twoStep(model, down, hc);
+            double[] plus = secondStepFrom(model, up, hc);
+            double[] minus = secondStepFrom(model, down, hc);
             for (int i = 0; i < 2; i++) {
                 double numerical = (plus[i] - minus[i]) / (2 * h);
                 assertThat(d.get(i, j)).as("∂θ2_%d/∂θ1_%d", i, j).isCloseTo(numerical,
@@ -116,7 +116,7 @@ class WindmeijerCorrectionTest {
     }
 
     /** θ̂2 = -(D'WD)^{-1} D'W g(0) with W = S(θ1)^{-1}, the closed form of a linear model. */
-    private static double[] twoStep(LinearRegressionMoments model, double[] firstStep, LongRunOptions options) {
+    private static double[] secondStepFrom(LinearRegressionMoments model, double[] firstStep, LongRunOptions options) {
         DMatrixRMaj w = Inference.efficientWeight(LongRunCovariance.estimate(model.contributions(firstStep), options)
                 .covariance());
         DMatrixRMaj d = model.meanJacobian(firstStep);
